@@ -1,0 +1,65 @@
+// Tamp: the field-crew daybook. Settings are read at run time from NUXT_* variables (see .env.example).
+export default defineNuxtConfig({
+  compatibilityDate: '2026-11-01',
+  modules: ['@nuxt/eslint', '@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
+  devtools: { enabled: false },
+  css: [
+    '@fontsource/atkinson-hyperlegible/400.css',
+    '@fontsource/atkinson-hyperlegible/700.css',
+  ],
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en' },
+      title: 'Tamp',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1, viewport-fit=cover' },
+        { name: 'description', content: 'The daybook for hardscape crews, their foreman and the office.' },
+        { name: 'theme-color', content: '#1f3a2e' },
+      ],
+    },
+  },
+  runtimeConfig: {
+    db: {
+      host: '127.0.0.1',
+      port: 3307,
+      user: 'tamp',
+      password: '',
+      name: 'tamp',
+    },
+    session: {
+      // A crew lead may stay offline for a week or more: 30 days unless configured.
+      maxAge: 60 * 60 * 24 * 30,
+      password: '',
+      cookie: { sameSite: 'lax', httpOnly: true },
+    },
+    mail: {
+      smtpHost: '127.0.0.1',
+      smtpPort: 2525,
+      from: 'Tamp <daybook@tamp.local>',
+    },
+    photos: {
+      dir: '.data/photos',
+    },
+    public: {
+      appName: 'Tamp',
+    },
+  },
+  typescript: {
+    strict: true,
+    tsConfig: { compilerOptions: { noUncheckedIndexedAccess: true } },
+    sharedTsConfig: { compilerOptions: { noUncheckedIndexedAccess: true } },
+    nodeTsConfig: {
+      compilerOptions: { noUncheckedIndexedAccess: true },
+      include: ['../scripts/**/*', '../tests/**/*', '../db/**/*', '../knexfile.ts', '../vitest.config.ts'],
+    },
+  },
+  nitro: {
+    typescript: { tsConfig: { compilerOptions: { noUncheckedIndexedAccess: true } } },
+  },
+  tailwindcss: {
+    cssPath: '~/assets/css/main.css',
+  },
+  eslint: {
+    config: { stylistic: false },
+  },
+})

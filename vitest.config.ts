@@ -1,0 +1,38 @@
+import { defineConfig } from 'vitest/config'
+
+// Three suites: pure code in node, the built server over HTTP with the real MariaDB, and real Chromium.
+// `npm test` (scripts/test.ts) prepares the database and the build before vitest starts.
+export default defineConfig({
+  test: {
+    projects: [
+      {
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        test: {
+          name: 'server',
+          include: ['tests/server/**/*.test.ts'],
+          environment: 'node',
+          // The files share one test database and start servers of their own: one at a time.
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 180_000,
+        },
+      },
+      {
+        test: {
+          name: 'browser',
+          include: ['tests/browser/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+        },
+      },
+    ],
+  },
+})
