@@ -1,0 +1,24 @@
+// The migrations, listed explicitly so that they load the same way under tsx, vitest and knex's CLI.
+// A new migration is added to db/migrations AND to this list (tests/unit/migration-source.test.ts checks).
+import type { Knex } from 'knex'
+import * as organisationsAndPeople from './migrations/20261201000001_organisations_and_people'
+import * as jobs from './migrations/20261201000002_jobs'
+import * as daybook from './migrations/20261201000003_daybook'
+import * as reviewSyncAudit from './migrations/20261201000004_review_sync_audit'
+
+export const migrations: Record<string, Knex.Migration> = {
+  '20261201000001_organisations_and_people.ts': organisationsAndPeople,
+  '20261201000002_jobs.ts': jobs,
+  '20261201000003_daybook.ts': daybook,
+  '20261201000004_review_sync_audit.ts': reviewSyncAudit,
+}
+
+export const migrationSource: Knex.MigrationSource<string> = {
+  getMigrations: async () => Object.keys(migrations).sort(),
+  getMigrationName: name => name,
+  getMigration: async (name) => {
+    const migration = migrations[name]
+    if (!migration) throw new Error(`unknown migration ${name}`)
+    return migration
+  },
+}

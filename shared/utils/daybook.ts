@@ -1,0 +1,30 @@
+// The daybook's vocabulary, used by the schemas, the screens and the server alike.
+
+export const roles = ['office', 'foreman', 'crew_lead'] as const
+export type Role = (typeof roles)[number]
+
+export const jobStatuses = ['planned', 'active', 'on_hold', 'finished'] as const
+export type JobStatus = (typeof jobStatuses)[number]
+
+export const zoneKinds = ['walkway', 'patio', 'driveway', 'wall', 'steps', 'drainage', 'other'] as const
+export type ZoneKind = (typeof zoneKinds)[number]
+
+export const dayStatuses = ['full_day', 'half_day', 'rain_out', 'no_work'] as const
+export type DayStatus = (typeof dayStatuses)[number]
+
+export const reviewStates = ['waiting', 'approved', 'flagged', 'reopened'] as const
+export type ReviewState = (typeof reviewStates)[number]
+
+/**
+ * How a day counts against a bid counted in crew-days (common practice in the trade):
+ * a full day uses 1 crew-day, a half day 0.5; a rain-out uses none and counts as 1 weather day;
+ * a day with no work counts for neither.
+ */
+export function crewDayValue(status: DayStatus): { worked: number, weather: number } {
+  switch (status) {
+    case 'full_day': return { worked: 1, weather: 0 }
+    case 'half_day': return { worked: 0.5, weather: 0 }
+    case 'rain_out': return { worked: 0, weather: 1 }
+    case 'no_work': return { worked: 0, weather: 0 }
+  }
+}
