@@ -1,0 +1,35 @@
+// `npm start`: the database with demo data, the mail catcher, a current build, then the production server.
+import { spawn } from 'node:child_process'
+import { resolve } from 'node:path'
+import { mailSettings, root } from './config'
+import { ensureBuild } from './build'
+import { startMailCatcher } from './mail-catcher'
+import { prepareApp, printSignIns } from './prepare'
+import { failInOneLine, waitForHealth } from './run-helpers'
+
+const port = Number(process.env.PORT || 3000)
+
+async function main(): Promise<void> {
+  const env = await prepareApp({ PORT: String(port) })
+  ensureBuild()
+  const catcher = await startMailCatcher({ smtpPort: mailSettings.smtpPort, httpPort: mailSettings.catcherHttpPort })
+  const server = spawn(process.execPath, [resolve(root, '.output', 'server', 'index.mjs')], {
+    cwd: root,
+    stdio: 'inherit',
+    env: { ...process.env, ...env, NUXT_MAIL_CATCHER_URL: `http://127.0.0.1:${catcher.httpPort}` },
+  })
+  const stop = (): void => {
+    server.kill('SIGTERM')
+  }
+  process.on('SIGINT', stop)
+  process.on('SIGTERM', stop)
+  server.on('exit', (code) => {
+    void catcher.stop().finally(() => process.exit(code ?? 0))
+  })
+
+  await waitForHealth(`http://localhost:${port}/api/health`)
+  printSignIns(`http://localhost:${port}`)
+  console.log(`Mail catcher: http://127.0.0.1:${catcher.httpPort}/messages (SMTP on 127.0.0.1:${catcher.smtpPort})`)
+}
+
+main().catch(failInOneLine)
