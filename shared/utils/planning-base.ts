@@ -1,0 +1,102 @@
+// The compacted base: how many lifts to place it in, and whether it reaches far enough past the
+// edge it carries.
+import { ceilCount, requireNonNegativeNumber, requirePositiveNumber } from './planning-guards'
+import { BASE_EXTENSION_RULES, type TradeBasis } from './trade-data'
+
+export interface BaseLiftsInput {
+  /** Compacted base depth the design calls for, in inches. */
+  designDepthIn: number
+  /** Thickest lift the compactor on site handles (see COMPACTOR_CLASSES), in inches. */
+  maxLiftIn: number
+}
+
+export interface BaseLifts {
+  lifts: number
+  liftIn: number
+}
+
+/**
+ * The fewest equal lifts, none thicker than the maximum: 8 in of base with a plate good for
+ * 4 in is two lifts of 4 in; 9 in is three of 3 in, not two of 4 in and a skim of 1 in.
+ */
+export function baseLifts(input: BaseLiftsInput): BaseLifts {
+  const designDepthIn = requirePositiveNumber('designDepthIn', input.designDepthIn)
+  const maxLiftIn = requirePositiveNumber('maxLiftIn', input.maxLiftIn)
+  const lifts = Math.max(1, ceilCount(designDepthIn / maxLiftIn))
+  return { lifts, liftIn: designDepthIn / lifts }
+}
+
+export type ExtensionZoneKind = 'wall' | 'walkway' | 'patio' | 'driveway' | 'steps' | 'drainage' | 'other'
+
+const EXTENSION_ZONE_KINDS: readonly ExtensionZoneKind[] = ['wall', 'walkway', 'patio', 'driveway', 'steps', 'drainage', 'other']
+
+export interface BaseExtensionInput {
+  kind: ExtensionZoneKind
+  /** How far the compacted base reaches past the block face, pavement edge or step unit, in inches. */
+  extensionIn: number
+  /** Compacted base depth; for pavement ICPI asks for the greater of 6 in or this. */
+  baseDepthIn?: number
+}
+
+export interface BaseExtensionCheck {
+  status: 'pass' | 'warn' | 'fail'
+  /** False for zone kinds with no extension rule (drainage, other): the status then says nothing. */
+  applies: boolean
+  requiredIn: number | null
+  rule: string
+  source: string
+  basis: TradeBasis | null
+}
+
+/**
+ * Does the base reach far enough past its edge?
+ * - wall: the leveling pad should reach about 6 in in front of the block face (and behind it).
+ *   Under 6 in warns: 4 in is short, the toe of the wall bears near the pad edge. Under 3 in,
+ *   half the rule, fails: the pad is barely wider than the block and the base can shear out.
+ * - walkway, patio, driveway: the base should reach past the edge restraint the greater of 6 in
+ *   or its own depth (ICPI). Short of that warns; under half of it fails, because the restraint's
+ *   spikes then sit at the edge of the base.
+ * - steps: as for a wall pad, about 6 in past the units, with the same thresholds.
+ * - drainage, other: no rule; the check passes with `applies: false`.
+ * Pass the extension on the worse side: a pad 8 in in front and 2 in behind fails.
+ */
+export function baseExtensionCheck(input: BaseExtensionInput): BaseExtensionCheck {
+  if (!EXTENSION_ZONE_KINDS.includes(input.kind)) {
+    throw new RangeError(`kind must be one of ${EXTENSION_ZONE_KINDS.join(', ')}, got ${String(input.kind)}`)
+  }
+  const extensionIn = requireNonNegativeNumber('extensionIn', input.extensionIn)
+  const baseDepthIn = input.baseDepthIn === undefined ? undefined : requirePositiveNumber('baseDepthIn', input.baseDepthIn)
+
+  if (input.kind === 'drainage' || input.kind === 'other') {
+    return {
+      status: 'pass',
+      applies: false,
+      requiredIn: null,
+      rule: `No base-extension rule for ${input.kind === 'drainage' ? 'a drainage run' : 'this zone'}; nothing checked.`,
+      source: 'none',
+      basis: null,
+    }
+  }
+
+  if (input.kind === 'wall') {
+    const rule = BASE_EXTENSION_RULES.wall
+    return grade(extensionIn, rule.valueIn, `Leveling pad about ${rule.valueIn} in in front of the block face and behind the block.`, rule.source, rule.basis)
+  }
+
+  if (input.kind === 'steps') {
+    const rule = BASE_EXTENSION_RULES.steps
+    return grade(extensionIn, rule.valueIn, `Base pad about ${rule.valueIn} in past the step units.`, rule.source, rule.basis)
+  }
+
+  const rule = BASE_EXTENSION_RULES.pavement
+  const requiredIn = Math.max(rule.valueIn, baseDepthIn ?? 0)
+  const text = baseDepthIn === undefined
+    ? `Base at least ${rule.valueIn} in past the pavement edge, or its own depth if deeper.`
+    : `Base past the pavement edge by the greater of ${rule.valueIn} in or its ${baseDepthIn} in depth: ${requiredIn} in.`
+  return grade(extensionIn, requiredIn, text, rule.source, rule.basis)
+}
+
+function grade(extensionIn: number, requiredIn: number, rule: string, source: string, basis: TradeBasis): BaseExtensionCheck {
+  const status = extensionIn >= requiredIn ? 'pass' : extensionIn >= requiredIn / 2 ? 'warn' : 'fail'
+  return { status, applies: true, requiredIn, rule, source, basis }
+}

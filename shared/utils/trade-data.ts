@@ -1,0 +1,179 @@
+// Trade figures the calculators check against, each with where it comes from. `basis` says how
+// far to trust it: 'published' means a code, regulation or institute document says it (the source
+// names which); 'common practice' means crews and manufacturers' installation guides do it, with
+// no single authority; 'from memory' means the figure was recalled, not checked against the
+// document, while this file was written: confirm it before relying on it.
+// Local codes, the project's specifications and a licensed engineer override every value here.
+
+export type TradeBasis = 'published' | 'common practice' | 'from memory'
+
+export interface TradeSourced {
+  source: string
+  basis: TradeBasis
+}
+
+export interface TradeInches extends TradeSourced {
+  valueIn: number
+}
+
+/** International Residential Code stair geometry, a reference: local codes differ. */
+export const IRC_STAIR_LIMITS = {
+  maxRiserIn: 7.75,
+  minTreadIn: 10,
+  maxRiserSpreadIn: 0.375,
+  source: 'International Residential Code R311.7.5.1 (riser at most 7¾ in; largest riser at most 3/8 in above the smallest) and R311.7.5.2 (tread at least 10 in)',
+  basis: 'published',
+} as const satisfies TradeSourced & Record<string, unknown>
+
+/** The smallest riser the model codes allow where they set one; a lower step is a trip hazard. */
+export const MIN_RISER: TradeInches = {
+  valueIn: 4,
+  source: 'International Building Code 1011.5.2 (risers 4 in minimum); the IRC sets no minimum',
+  basis: 'published',
+}
+
+/** Outdoor step proportion: twice the riser plus the tread. */
+export const OUTDOOR_STEP_PROPORTION: TradeInches = {
+  valueIn: 26,
+  source: 'Harris & Dines, Time-Saver Standards for Landscape Architecture: exterior steps 2R + T = 26 in (e.g. 6 in riser / 14 in tread, 5 in / 16 in); recalled from memory',
+  basis: 'from memory',
+}
+
+/** The band around 2R + T = 26 in that walks comfortably outdoors. */
+export const OUTDOOR_STEP_COMFORT = {
+  minIn: 25,
+  maxIn: 27,
+  source: 'Landscape practice: 2R + T within about 1 in of 26 in; no code sets this band',
+  basis: 'common practice',
+} as const satisfies TradeSourced & Record<string, unknown>
+
+export type CompactorClassId =
+  | 'plate-light'
+  | 'plate-medium'
+  | 'plate-heavy'
+  | 'plate-reversible'
+  | 'rammer'
+  | 'roller-small'
+
+export interface CompactorClass extends TradeSourced {
+  id: CompactorClassId
+  label: string
+  /** Rough operating weight, to tell the classes apart on a rental ticket. */
+  weightLb: string
+  /** Thickest loose lift this class compacts through in one layer. */
+  maxLooseLiftIn: number
+  bestFor: string
+}
+
+const COMPACTOR_SOURCE =
+  'Typical figures from compactor makers\u2019 spec sheets and rental-yard charts, recalled from memory; the machine\u2019s own rating and the project specification govern'
+
+/** Compactor classes, lightest first, with the thickest loose lift each handles. */
+export const COMPACTOR_CLASSES: readonly CompactorClass[] = [
+  { id: 'plate-light', label: 'Light plate compactor', weightLb: 'about 100–150 lb', maxLooseLiftIn: 4, bestFor: 'granular base and bedding in small areas', source: COMPACTOR_SOURCE, basis: 'from memory' },
+  { id: 'plate-medium', label: 'Medium plate compactor', weightLb: 'about 150–250 lb', maxLooseLiftIn: 6, bestFor: 'granular base under walks and patios', source: COMPACTOR_SOURCE, basis: 'from memory' },
+  { id: 'plate-heavy', label: 'Heavy plate compactor', weightLb: 'about 250–400 lb', maxLooseLiftIn: 8, bestFor: 'granular base under driveways, wall leveling pads', source: COMPACTOR_SOURCE, basis: 'from memory' },
+  { id: 'plate-reversible', label: 'Reversible plate compactor', weightLb: 'about 400–900 lb', maxLooseLiftIn: 12, bestFor: 'thick granular base, wall backfill away from the face', source: COMPACTOR_SOURCE, basis: 'from memory' },
+  { id: 'rammer', label: 'Rammer (jumping jack)', weightLb: 'about 130–170 lb', maxLooseLiftIn: 6, bestFor: 'cohesive soil and trench backfill in tight spots', source: COMPACTOR_SOURCE, basis: 'from memory' },
+  { id: 'roller-small', label: 'Small vibratory roller (walk-behind, double drum)', weightLb: 'about 1,500–3,000 lb', maxLooseLiftIn: 8, bestFor: 'larger base areas, driveways', source: COMPACTOR_SOURCE, basis: 'from memory' },
+]
+
+export type BaseUse = 'walkway' | 'patio' | 'driveway' | 'wallLevelingPad'
+
+const ICPI_TOLERANCES =
+  'ICPI, Construction Tolerances and Recommendations for Interlocking Concrete Pavements: minimum base thickness'
+
+/** Compacted base depth by use, on well-drained soil in a mild climate. */
+export const BASE_DEPTH_BY_USE: Readonly<Record<BaseUse, TradeInches>> = {
+  walkway: { valueIn: 4, source: `${ICPI_TOLERANCES}, sidewalks, patios and pedestrian areas 4 in (100 mm)`, basis: 'published' },
+  patio: { valueIn: 4, source: `${ICPI_TOLERANCES}, sidewalks, patios and pedestrian areas 4 in (100 mm)`, basis: 'published' },
+  driveway: { valueIn: 6, source: `${ICPI_TOLERANCES}, residential driveways 6 in (150 mm)`, basis: 'published' },
+  wallLevelingPad: { valueIn: 6, source: 'Segmental retaining wall installation guides (NCMA practice, block makers): compacted granular leveling pad at least 6 in thick', basis: 'common practice' },
+}
+
+/** Deeper base where the ground freezes or drains slowly (clay). */
+export const BASE_DEPTH_FROST_OR_CLAY: Readonly<Record<'walkway' | 'patio' | 'driveway', TradeInches>> = {
+  walkway: { valueIn: 6, source: 'Paver contractors in freeze-thaw regions: about 6 in under walks and patios', basis: 'common practice' },
+  patio: { valueIn: 6, source: 'Paver contractors in freeze-thaw regions: about 6 in under walks and patios', basis: 'common practice' },
+  driveway: { valueIn: 10, source: 'Paver contractors in freeze-thaw regions: about 10 in under driveways', basis: 'common practice' },
+}
+
+/** Sand bedding under pavers, after the pavers are compacted into it. */
+export const BEDDING_SAND: TradeInches = {
+  valueIn: 1,
+  source: 'ICPI, Construction Tolerances and Recommendations for Interlocking Concrete Pavements: bedding layer 1 in (25 mm) nominal',
+  basis: 'published',
+}
+
+/** Chip-stone bedding, the common alternative to sand. */
+export const BEDDING_CHIP_STONE: TradeInches & { material: string } = {
+  valueIn: 1,
+  material: '1/4 in chip stone (about ASTM No. 8 or No. 89 size)',
+  source: 'Paver installers: about 1 in of 1/4 in chip stone screeded over the base',
+  basis: 'common practice',
+}
+
+/** Base over a drain line that runs under pavers. */
+export const DRAIN_COVER_UNDER_PAVERS: TradeInches = {
+  valueIn: 4,
+  source: 'Paver installers: at least about 4 in of compacted base between a drain pipe and the bedding',
+  basis: 'common practice',
+}
+
+/** Least fall for a perforated or solid drain line. */
+export const DRAIN_MIN_SLOPE = {
+  valuePercent: 1,
+  source: 'Landscape drainage practice: at least 1% (about 1/8 in per foot) so the line drains and does not silt up',
+  basis: 'common practice',
+} as const satisfies TradeSourced & Record<string, unknown>
+
+/** How far the compacted base should reach past the edge it carries. */
+export const BASE_EXTENSION_RULES = {
+  wall: {
+    valueIn: 6,
+    source: 'Segmental retaining wall installation guides (NCMA practice, block makers): leveling pad about 6 in in front of the block face and 6 in behind the block',
+    basis: 'common practice',
+  },
+  pavement: {
+    valueIn: 6,
+    source: 'ICPI, Construction Tolerances and Recommendations: over-excavation the greater of 6 in (150 mm) or the base thickness; ICPI Tech Spec 3: base extends past the edge restraint at least its own thickness',
+    basis: 'published',
+  },
+  steps: {
+    valueIn: 6,
+    source: 'Block-step installers: base pad about 6 in past the step units on each exposed side, as for a wall leveling pad',
+    basis: 'common practice',
+  },
+} as const satisfies Record<string, TradeInches>
+
+export interface GeotextileOverlap extends TradeSourced {
+  subgrade: string
+  minOverlapIn: number | null
+  maxOverlapIn: number | null
+  sewn: 'no' | 'or sewn' | 'sewn'
+}
+
+const FHWA_OVERLAP =
+  'FHWA NHI-07-092, Geosynthetic Design & Construction Guidelines (Holtz, Christopher, Berg, 2008), overlap for separation and stabilization; values as reproduced in manufacturer literature, the manual page itself not checked'
+
+/** Geotextile overlap between strips by subgrade strength (CBR). */
+export const GEOTEXTILE_OVERLAPS: readonly GeotextileOverlap[] = [
+  { subgrade: 'CBR above 3 (firm)', minOverlapIn: 12, maxOverlapIn: 18, sewn: 'no', source: FHWA_OVERLAP, basis: 'published' },
+  { subgrade: 'CBR 1 to 3', minOverlapIn: 24, maxOverlapIn: 39, sewn: 'no', source: FHWA_OVERLAP, basis: 'published' },
+  { subgrade: 'CBR 0.5 to 1', minOverlapIn: 39, maxOverlapIn: null, sewn: 'or sewn', source: FHWA_OVERLAP, basis: 'published' },
+  { subgrade: 'CBR below 0.5 (very soft)', minOverlapIn: null, maxOverlapIn: null, sewn: 'sewn', source: FHWA_OVERLAP, basis: 'published' },
+]
+
+/** Starting figures for a takeoff when the supplier's ticket is not at hand. */
+export const AGGREGATE_TYPICALS = {
+  compactionFactor: {
+    value: 1.25,
+    source: 'Hardscape estimating: order about 20–30% more loose base than the compacted volume',
+    basis: 'common practice',
+  },
+  denseGradedBaseTonsPerCuYd: {
+    value: 1.4,
+    source: 'Quarry and supplier tickets for 3/4 in minus crushed base, loose: about 1.3–1.5 tons per cubic yard; recalled from memory, use your supplier\u2019s figure',
+    basis: 'from memory',
+  },
+} as const satisfies Record<string, TradeSourced & { value: number }>
