@@ -1,6 +1,6 @@
 // `npm test`: a fresh test database (never the demo one), a current build, Chromium, then every suite.
 import { spawnSync } from 'node:child_process'
-import { readdirSync } from 'node:fs'
+import { existsSync, readdirSync } from 'node:fs'
 import { resolve } from 'node:path'
 import { root, serverEnv } from './config'
 import { createDatabase, ensureDatabaseServer } from './db'
@@ -16,7 +16,8 @@ async function main(): Promise<void> {
   await ensureDatabaseServer()
   await createDatabase(database, { fresh: true })
   await migrateLatest(database)
-  const browserTests = readdirSync(resolve(root, 'tests', 'browser')).some(f => f.endsWith('.test.ts'))
+  const browserDir = resolve(root, 'tests', 'browser')
+  const browserTests = existsSync(browserDir) && readdirSync(browserDir).some(f => f.endsWith('.test.ts'))
   const chromium = browserTests ? await ensureDebianPackage('chromium', 'chromium') : ''
   ensureBuild()
   const result = spawnSync('npx', ['vitest', 'run', ...process.argv.slice(2)], {
