@@ -1,7 +1,17 @@
 // Tamp: the field-crew daybook. Settings are read at run time from NUXT_* variables (see .env.example).
 export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
-  modules: ['@nuxt/eslint', '@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
+  modules: [
+    '@nuxt/eslint', '@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils',
+    // The development mail inbox page exists only in development.
+    (_options, nuxt) => {
+      if (nuxt.options.dev) return
+      nuxt.hook('pages:extend', (pages) => {
+        const index = pages.findIndex(page => page.path === '/dev/mail')
+        if (index >= 0) pages.splice(index, 1)
+      })
+    },
+  ],
   devtools: { enabled: false },
   css: [
     '@fontsource/atkinson-hyperlegible/400.css',
@@ -30,13 +40,23 @@ export default defineNuxtConfig({
       // A crew lead may stay offline for a week or more: 30 days unless configured.
       maxAge: 60 * 60 * 24 * 30,
       password: '',
-      cookie: { sameSite: 'lax', httpOnly: true },
+      // Secure by default; dropped on plain HTTP by server/middleware/00.session-cookie.ts.
+      cookie: { sameSite: 'lax', httpOnly: true, secure: true },
     },
     mail: {
       smtpHost: '127.0.0.1',
       smtpPort: 2525,
+      smtpSecure: false,
+      smtpUser: '',
+      smtpPassword: '',
       from: 'Tamp <daybook@tamp.local>',
     },
+    // Where links in e-mails point (https://tamp.example.com); the request's own address when empty.
+    appUrl: '',
+    // Behind a reverse proxy, believe its X-Forwarded-For for the per-address sign-in throttle.
+    trustProxy: false,
+    // Set by `npm run dev` to the local mail catcher, for the development inbox.
+    mailCatcherUrl: '',
     photos: {
       dir: '.data/photos',
     },
@@ -54,6 +74,7 @@ export default defineNuxtConfig({
     },
   },
   nitro: {
+    handlers: [{ route: '/api/dev/mail', method: 'get', handler: '~~/server/dev/mail.get.ts', env: 'dev' }],
     typescript: { tsConfig: { compilerOptions: { noUncheckedIndexedAccess: true } } },
   },
   tailwindcss: {

@@ -1,0 +1,4 @@
+export default defineEventHandler(async (event) => {
+  const member = await requireMember(event)
+  return await profileOf(member)
+})
