@@ -1,0 +1,8 @@
+import { uuidParam } from '../../../shared/schemas/auth'
+
+export default defineEventHandler(async (event) => {
+  const office = await requireMember(event, ['office'])
+  const { id } = await paramsWith(event, uuidParam)
+  await revokeInvitation(office, id)
+  return { ok: true }
+})
