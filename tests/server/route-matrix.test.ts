@@ -1,0 +1,88 @@
+// Every API route × every kind of caller, asserting the status each must get. A new route fails this
+// test until it has a line here, so none can be left unguarded.
+import { randomUUID } from 'node:crypto'
+import { beforeAll, describe, expect, it } from 'vitest'
+import { useBuiltServer } from '../support/server'
+import { createCompany, uniqueEmail, type FixtureCompany } from '../support/fixtures'
+import { call, signIn, type Cookie } from '../support/http'
+import { apiRoutes } from '../support/api-routes'
+import { testDb } from '../support/db'
+
+await useBuiltServer()
+
+const callers = ['anonymous', 'crewLead', 'foreman', 'office', 'otherOffice'] as const
+type Caller = (typeof callers)[number]
+type Expected = [anonymous: number, crewLead: number, foreman: number, office: number, otherOffice: number]
+interface Case { request: () => Promise<{ path: string, body?: unknown }>, expect: Expected }
+
+let ours: FixtureCompany
+let theirs: FixtureCompany
+const cookies = {} as Record<Caller, Cookie | undefined>
+
+async function openInvitation(): Promise<string> {
+  const id = randomUUID()
+  await testDb()('invitations').insert({ id, organisation_id: ours.organisationId, email: uniqueEmail('matrix'), role: 'crew_lead', token_hash: randomUUID().replace(/-/g, '').padEnd(64, '0'), expires_at: new Date(Date.now() + 86_400_000) })
+  return id
+}
+const fakeToken = 'x'.repeat(43)
+const path = (p: string) => async () => ({ path: p })
+
+const cases: Record<string, Case> = {
+  'GET /api/health': { request: path('/api/health'), expect: [200, 200, 200, 200, 200] },
+  'POST /api/auth/sign-in': { request: async () => ({ path: '/api/auth/sign-in', body: { email: uniqueEmail('nobody'), password: 'wrong' } }), expect: [401, 401, 401, 401, 401] },
+  'POST /api/auth/sign-out': { request: path('/api/auth/sign-out'), expect: [200, 200, 200, 200, 200] },
+  'POST /api/auth/forgot-password': { request: async () => ({ path: '/api/auth/forgot-password', body: { email: uniqueEmail('nobody') } }), expect: [202, 202, 202, 202, 202] },
+  'POST /api/auth/reset-password': { request: async () => ({ path: '/api/auth/reset-password', body: { token: fakeToken, password: 'long-enough-password' } }), expect: [400, 400, 400, 400, 400] },
+  'GET /api/invitations/by-token/:token': { request: path(`/api/invitations/by-token/${fakeToken}`), expect: [404, 404, 404, 404, 404] },
+  'POST /api/invitations/accept': { request: async () => ({ path: '/api/invitations/accept', body: { token: fakeToken, name: 'Nobody', password: 'long-enough-password' } }), expect: [404, 404, 404, 404, 404] },
+  'POST /api/invitations': { request: async () => ({ path: '/api/invitations', body: { email: uniqueEmail('invite'), role: 'crew_lead' } }), expect: [401, 403, 403, 201, 201] },
+  'POST /api/invitations/:id/resend': { request: async () => ({ path: `/api/invitations/${await openInvitation()}/resend` }), expect: [401, 403, 403, 200, 404] },
+  'DELETE /api/invitations/:id': { request: async () => ({ path: `/api/invitations/${await openInvitation()}` }), expect: [401, 403, 403, 200, 404] },
+  'GET /api/members': { request: path('/api/members'), expect: [401, 403, 403, 200, 200] },
+  'PATCH /api/members/:id': { request: async () => ({ path: `/api/members/${ours.foreman.membershipId}`, body: { role: 'foreman' } }), expect: [401, 403, 403, 200, 404] },
+  'GET /api/profile': { request: path('/api/profile'), expect: [401, 200, 200, 200, 200] },
+  'PATCH /api/profile': { request: async () => ({ path: '/api/profile', body: { locale: 'en' } }), expect: [401, 200, 200, 200, 200] },
+  'POST /api/profile/password': { request: async () => ({ path: '/api/profile/password', body: { currentPassword: 'not-mine', newPassword: 'long-enough-password' } }), expect: [401, 422, 422, 422, 422] },
+  'GET /api/jobs': { request: path('/api/jobs'), expect: [401, 200, 200, 200, 200] },
+  'GET /api/jobs/:id': { request: async () => ({ path: `/api/jobs/${ours.jobId}` }), expect: [401, 200, 200, 200, 404] },
+}
+
+beforeAll(async () => {
+  ours = await createCompany('Matrix Pavers')
+  theirs = await createCompany('Other Outfit')
+  cookies.crewLead = await signIn(ours.lead.email)
+  cookies.foreman = await signIn(ours.foreman.email)
+  cookies.office = await signIn(ours.office.email)
+  cookies.otherOffice = await signIn(theirs.office.email)
+})
+
+describe('route matrix', () => {
+  it('has an entry for every route in server/api, and no entry for a route that is gone', () => {
+    expect(Object.keys(cases).sort()).toEqual(apiRoutes())
+  })
+
+  for (const [route, c] of Object.entries(cases)) {
+    const method = route.split(' ')[0] ?? 'GET'
+    it.each(callers.map((caller, i) => [caller, c.expect[i]] as const))(`${route} as %s answers %i`, async (caller, status) => {
+      const { path: url, body } = await c.request()
+      const response = await call(method, url, { cookie: cookies[caller], body })
+      expect(response.status).toBe(status)
+    })
+  }
+})
+
+describe('job scoping inside one company', () => {
+  it('hides a job from a foreman and a crew lead who are not assigned to it', async () => {
+    for (const person of [ours.otherForeman, ours.otherLead]) {
+      const cookie = await signIn(person.email)
+      expect((await call('GET', `/api/jobs/${ours.jobId}`, { cookie })).status).toBe(404)
+      const { jobs } = await (await call('GET', '/api/jobs', { cookie })).json()
+      expect(jobs).toEqual([])
+    }
+  })
+
+  it('lists only the company\'s own jobs to the office', async () => {
+    const { jobs } = await (await call('GET', '/api/jobs', { cookie: cookies.otherOffice })).json()
+    expect(jobs.map((j: { id: string }) => j.id)).toEqual([theirs.jobId])
+  })
+})
