@@ -58,7 +58,14 @@ export default defineNuxtConfig({
     // Set by `npm run dev` to the local mail catcher, for the development inbox.
     mailCatcherUrl: '',
     photos: {
+      // 'fs' (under dir) or 's3' (any S3-compatible store).
+      driver: 'fs',
       dir: '.data/photos',
+      s3Endpoint: '',
+      s3Region: 'us-east-1',
+      s3Bucket: '',
+      s3AccessKeyId: '',
+      s3SecretAccessKey: '',
     },
     public: {
       appName: 'Tamp',
