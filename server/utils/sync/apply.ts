@@ -1,0 +1,109 @@
+// Applies one batch of phone changes inside the caller's transaction: decide every change against the
+// server's state, then write with one statement per kind where possible.
+import type { Knex } from 'knex'
+import type { SyncChange, SyncResult } from '../../../shared/schemas/daybook'
+import type { Member } from '../members'
+import { loadContext, type BatchContext } from './context'
+import { fromRow, kindMaps, sameContent, toColumns } from './kinds'
+
+type Row = Record<string, unknown> & { id: string }
+type Write = { kind: SyncChange['kind'], id: string, columns: Record<string, unknown>, revision: number, op: 'insert' | 'update' | 'delete' }
+
+const lockedMessage = 'The foreman approved this day; ask them to reopen it to change it'
+
+/** Where a change belongs: its day sheet (existing or new in this batch) and job, or why it cannot go. */
+function placeOf(change: SyncChange, ctx: BatchContext, existingRow: Row | undefined, newSheets: Map<string, Row>) {
+  if (change.kind === 'day_sheet') {
+    return { jobId: change.record.jobId, sheet: existingRow }
+  }
+  const sheetId = change.record.daySheetId
+  const sheet = ctx.sheets.get(sheetId) ?? newSheets.get(sheetId)
+  return { jobId: sheet?.job_id as string | undefined, sheet }
+}
+
+function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Row>, claimed: Set<string>): { result: SyncResult, write?: Write } {
+  const { kind, record } = change
+  const base = { kind, id: record.id }
+  const row = ctx.existing[kind].get(record.id)
+  const { jobId, sheet } = placeOf(change, ctx, row, newSheets)
+  if (!jobId || !ctx.visibleJobs.has(jobId)) {
+    return { result: { ...base, status: 'rejected', message: kind === 'day_sheet' ? 'No such job' : 'The day sheet of this entry is not on the server' } }
+  }
+  const server = row ? fromRow(kind, row) : null
+  if (row && kindMaps[kind].fixed.some(key => JSON.stringify(server?.[key]) !== JSON.stringify((record as Record<string, unknown>)[key]))) {
+    return { result: { ...base, status: 'rejected', message: 'This entry cannot move to another day, job, zone or person' } }
+  }
+  if (sheet?.review_state === 'approved') {
+    return { result: { ...base, status: 'conflict', revision: row?.revision as number | undefined, server, message: lockedMessage } }
+  }
+  if (change.kind === 'lift' && ctx.zones.get(change.record.zoneId)?.job_id !== jobId) {
+    return { result: { ...base, status: 'rejected', message: 'That zone is not part of this job' } }
+  }
+  if (change.kind === 'time_entry' && !ctx.crew.has(change.record.crewMemberId)) {
+    return { result: { ...base, status: 'rejected', message: 'That person is not on the crew roster' } }
+  }
+
+  if (change.op === 'delete') {
+    if (!row) return { result: { ...base, status: 'unchanged', message: 'Already removed' } }
+    if (row.revision !== change.baseRevision) return { result: { ...base, status: 'conflict', revision: row.revision as number, server } }
+    return { result: { ...base, status: 'applied' }, write: { kind, id: record.id, columns: {}, revision: 0, op: 'delete' } }
+  }
+
+  const columns = toColumns(kind, record as never)
+  if (row) {
+    if (server && sameContent(kind, server, record)) return { result: { ...base, status: 'unchanged', revision: row.revision as number } }
+    if (row.revision !== change.baseRevision) return { result: { ...base, status: 'conflict', revision: row.revision as number, server } }
+    const revision = (row.revision as number) + 1
+    return { result: { ...base, status: 'applied', revision }, write: { kind, id: record.id, columns, revision, op: 'update' } }
+  }
+  if (change.baseRevision !== null) {
+    return { result: { ...base, status: 'conflict', server: null, message: 'This entry was removed on the server' } }
+  }
+  const natural = change.kind === 'day_sheet' ? `${change.record.jobId}|${change.record.workDate}` : change.kind === 'time_entry' ? `${change.record.daySheetId}|${change.record.crewMemberId}` : undefined
+  if (natural && (ctx.naturalKeys.has(natural) || claimed.has(natural))) {
+    const message = change.kind === 'day_sheet' ? 'This job already has a day sheet for that date' : 'This person already has hours on this day'
+    return { result: { ...base, status: 'conflict', server: null, message } }
+  }
+  if (natural) claimed.add(natural)
+  if (change.kind === 'day_sheet') newSheets.set(record.id, { id: record.id, job_id: change.record.jobId, review_state: 'waiting' })
+  return { result: { ...base, status: 'applied', revision: 1 }, write: { kind, id: record.id, columns, revision: 1, op: 'insert' } }
+}
+
+export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[]): Promise<SyncResult[]> {
+  const ctx = await loadContext(trx, member, changes)
+  const newSheets = new Map<string, Row>()
+  const claimed = new Set<string>()
+  const decisions = changes.map(change => decide(change, ctx, newSheets, claimed))
+  const writes = decisions.flatMap(d => d.write ? [d.write] : [])
+  const now = new Date()
+
+  // Inserts in dependency order: day sheets before what hangs on them.
+  for (const kind of Object.keys(kindMaps) as SyncChange['kind'][]) {
+    const rows = writes.filter(w => w.kind === kind && w.op === 'insert').map((w) => {
+      const extra: Record<string, unknown> = { id: w.id }
+      if (kind === 'day_sheet') Object.assign(extra, { author_id: member.userId })
+      if (kind === 'material_drop' || kind === 'lift') extra.job_id = (ctx.sheets.get(w.columns.day_sheet_id as string) ?? newSheets.get(w.columns.day_sheet_id as string))?.job_id
+      if (kind === 'lift') {
+        const zone = w.columns.zone_id as string
+        extra.sequence = ctx.nextLiftSequence.get(zone) ?? 1
+        ctx.nextLiftSequence.set(zone, (extra.sequence as number) + 1)
+      }
+      return { ...w.columns, ...extra, revision: 1, created_at: now, updated_at: now }
+    })
+    if (rows.length) await trx(kindMaps[kind].table).insert(rows)
+  }
+  for (const w of writes.filter(w => w.op === 'update')) {
+    await trx(kindMaps[w.kind].table).where({ id: w.id }).update({ ...w.columns, revision: w.revision, updated_at: now })
+  }
+  for (const kind of Object.keys(kindMaps) as SyncChange['kind'][]) {
+    const ids = writes.filter(w => w.kind === kind && w.op === 'delete').map(w => w.id)
+    if (ids.length) await trx(kindMaps[kind].table).whereIn('id', ids).delete()
+  }
+  if (writes.length) {
+    await trx('audit_log').insert(writes.map(w => ({
+      organisation_id: member.organisationId, actor_id: member.userId, action: `sync.${w.op}`, subject_type: w.kind, subject_id: w.id,
+      detail: JSON.stringify({ revision: w.revision }), created_at: now,
+    })))
+  }
+  return decisions.map(d => d.result)
+}

@@ -1,0 +1,50 @@
+// How each kind of phone record maps onto its table. Column names are the records' keys in snake_case.
+import type { RecordKind, RecordOf } from '../../../shared/schemas/daybook'
+
+type Row = Record<string, unknown>
+
+const snake = (key: string) => key.replace(/[A-Z]/g, c => `_${c.toLowerCase()}`)
+const camel = (key: string) => key.replace(/_([a-z])/g, (_, c: string) => c.toUpperCase())
+
+interface KindMap {
+  table: string
+  /** Keys of the record that name its parent and may never change after creation. */
+  fixed: string[]
+  /** Record keys in the order the phone knows them. */
+  keys: string[]
+}
+
+export const kindMaps: Record<RecordKind, KindMap> = {
+  day_sheet: {
+    table: 'day_sheets',
+    fixed: ['jobId', 'workDate'],
+    keys: ['id', 'jobId', 'workDate', 'status', 'startedAt', 'finishedAt', 'weatherConditions', 'rainIn', 'temperatureF', 'hoursLost', 'hoursLostReason', 'workDone', 'siteNotes', 'locateTicket'],
+  },
+  time_entry: { table: 'time_entries', fixed: ['daySheetId', 'crewMemberId'], keys: ['id', 'daySheetId', 'crewMemberId', 'hours'] },
+  material_drop: { table: 'material_drops', fixed: ['daySheetId'], keys: ['id', 'daySheetId', 'material', 'quantity', 'unit', 'stagedAt', 'ticketNumber'] },
+  lift: { table: 'lifts', fixed: ['daySheetId', 'zoneId'], keys: ['id', 'daySheetId', 'zoneId', 'material', 'looseIn', 'compactedIn', 'passes', 'compactorClass', 'moistureNote'] },
+}
+
+/** The columns a record writes (without revision and bookkeeping). */
+export function toColumns<K extends RecordKind>(kind: K, record: RecordOf[K]): Row {
+  const row: Row = {}
+  for (const key of kindMaps[kind].keys) row[snake(key)] = (record as Row)[key] ?? null
+  return row
+}
+
+/** A row as the phone knows it: the record's keys, times as HH:MM. */
+export function fromRow(kind: RecordKind, row: Row): Row {
+  const record: Row = {}
+  for (const key of kindMaps[kind].keys) {
+    const value = row[snake(key)]
+    record[key] = typeof value === 'string' && /^\d\d:\d\d:\d\d$/.test(value) ? value.slice(0, 5) : value ?? null
+  }
+  return record
+}
+
+/** Whether two versions of a record say the same thing (missing and null are the same). */
+export function sameContent(kind: RecordKind, a: Row, b: Row): boolean {
+  return kindMaps[kind].keys.every(key => JSON.stringify(a[key] ?? null) === JSON.stringify(b[key] ?? null))
+}
+
+export { camel, snake }

@@ -1,0 +1,104 @@
+// The records a crew lead's phone creates, as the phone saves them and the sync route checks them.
+import { z } from 'zod'
+import { dayStatuses } from '../utils/daybook'
+
+const id = z.uuid('Not a valid id')
+const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`)
+const optionalText = (max: number) => text(max).nullable().optional()
+const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use a time like 07:30').nullable().optional()
+const isoDate = z.iso.date('Use a date like 2026-11-30')
+const number = (min: number, max: number, unit: string) =>
+  z.number({ error: 'Enter a number' }).min(min, `At least ${min} ${unit}`).max(max, `At most ${max} ${unit}`)
+
+export const daySheetRecord = z.strictObject({
+  id,
+  jobId: id,
+  workDate: isoDate,
+  status: z.enum(dayStatuses, { error: 'Choose full day, half day, rain-out or no work' }),
+  startedAt: clock,
+  finishedAt: clock,
+  weatherConditions: optionalText(60),
+  rainIn: number(0, 20, 'in').nullable().optional(),
+  temperatureF: number(-40, 130, '°F').nullable().optional(),
+  hoursLost: number(0, 24, 'hours').default(0),
+  hoursLostReason: optionalText(255),
+  workDone: optionalText(4000),
+  siteNotes: optionalText(4000),
+  locateTicket: optionalText(60),
+})
+
+export const timeEntryRecord = z.strictObject({
+  id,
+  daySheetId: id,
+  crewMemberId: id,
+  hours: number(0.25, 24, 'hours'),
+})
+
+export const materialDropRecord = z.strictObject({
+  id,
+  daySheetId: id,
+  material: text(120).min(1, 'Name the material'),
+  quantity: number(0.01, 100_000, ''),
+  unit: text(20).min(1, 'Give the unit'),
+  stagedAt: optionalText(160),
+  ticketNumber: optionalText(60),
+})
+
+export const liftRecord = z.strictObject({
+  id,
+  daySheetId: id,
+  zoneId: id,
+  material: text(120).min(1, 'Name the material'),
+  looseIn: number(0.25, 24, 'in'),
+  compactedIn: number(0.25, 24, 'in'),
+  passes: z.number().int('Whole passes only').min(1, 'At least 1 pass').max(50, 'At most 50 passes'),
+  compactorClass: text(40).min(1, 'Choose the compactor'),
+  moistureNote: optionalText(255),
+}).refine(lift => lift.compactedIn <= lift.looseIn, { message: 'Compacted thickness cannot exceed the loose thickness', path: ['compactedIn'] })
+
+export const recordSchemas = {
+  day_sheet: daySheetRecord,
+  time_entry: timeEntryRecord,
+  material_drop: materialDropRecord,
+  lift: liftRecord,
+} as const
+
+export type RecordKind = keyof typeof recordSchemas
+export const recordKinds = Object.keys(recordSchemas) as RecordKind[]
+export type DaySheetRecord = z.infer<typeof daySheetRecord>
+export type TimeEntryRecord = z.infer<typeof timeEntryRecord>
+export type MaterialDropRecord = z.infer<typeof materialDropRecord>
+export type LiftRecord = z.infer<typeof liftRecord>
+export interface RecordOf { day_sheet: DaySheetRecord, time_entry: TimeEntryRecord, material_drop: MaterialDropRecord, lift: LiftRecord }
+
+/** One change the phone sends: the record as it is now, and the server revision it was edited from. */
+const change = <K extends RecordKind>(kind: K) => z.strictObject({
+  kind: z.literal(kind),
+  op: z.enum(['upsert', 'delete']),
+  /** null for a record the phone created; otherwise the revision the crew lead started from. */
+  baseRevision: z.number().int().min(1).nullable(),
+  record: recordSchemas[kind],
+})
+
+export const syncChange = z.discriminatedUnion('kind', [change('day_sheet'), change('time_entry'), change('material_drop'), change('lift')])
+export type SyncChange = z.infer<typeof syncChange>
+
+export const syncBatch = z.strictObject({
+  changes: z.array(syncChange).min(1, 'Nothing to send').max(200, 'At most 200 changes a batch'),
+})
+export type SyncBatch = z.infer<typeof syncBatch>
+
+export const syncResultStatuses = ['applied', 'unchanged', 'conflict', 'rejected'] as const
+export interface SyncResult {
+  kind: RecordKind
+  id: string
+  status: (typeof syncResultStatuses)[number]
+  /** The server's revision after the change (applied, unchanged) or as it stands (conflict). */
+  revision?: number
+  /** The server's version, so the crew lead can choose between theirs and the server's. */
+  server?: Record<string, unknown> | null
+  message?: string
+}
+export interface SyncAnswer { results: SyncResult[] }
+
+export const idempotencyKey = z.string().regex(/^[\w-]{8,100}$/, 'Idempotency-Key must be 8 to 100 letters, digits, - or _')
