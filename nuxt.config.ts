@@ -2,7 +2,7 @@
 export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   modules: [
-    '@nuxt/eslint', '@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils',
+    '@nuxt/eslint', '@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@nuxtjs/i18n', '@vite-pwa/nuxt',
     // The development mail inbox page exists only in development.
     (_options, nuxt) => {
       if (nuxt.options.dev) return
@@ -86,6 +86,49 @@ export default defineNuxtConfig({
   },
   tailwindcss: {
     cssPath: '~/assets/css/main.css',
+  },
+  // English and Spanish for every crew-facing screen; the language is the user's choice, kept on the phone.
+  i18n: {
+    locales: [
+      { code: 'en', language: 'en-US', name: 'English', file: 'en.json' },
+      { code: 'es', language: 'es-US', name: 'Español', file: 'es.json' },
+    ],
+    defaultLocale: 'en',
+    strategy: 'no_prefix',
+    detectBrowserLanguage: { useCookie: true, cookieKey: 'tamp_locale', fallbackLocale: 'en', redirectOn: 'no prefix' },
+  },
+  routeRules: {
+    // A page shell rendered without data, precached by the service worker and answered for every
+    // navigation offline (SSR pages cannot be precached: see ../shared/STACK.md).
+    '/shell': { ssr: false, prerender: true },
+  },
+  pwa: {
+    registerType: 'prompt',
+    manifest: {
+      name: 'Tamp daybook',
+      short_name: 'Tamp',
+      description: 'The daybook for hardscape crews, their foreman and the office.',
+      theme_color: '#1f3a2e',
+      background_color: '#f6f5f2',
+      display: 'standalone',
+      start_url: '/',
+      scope: '/',
+      icons: [
+        { src: '/icons/tamp-192.png', sizes: '192x192', type: 'image/png' },
+        { src: '/icons/tamp-512.png', sizes: '512x512', type: 'image/png' },
+        { src: '/icons/tamp-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+      ],
+    },
+    workbox: {
+      navigateFallback: '/shell',
+      navigateFallbackDenylist: [/^\/api\//],
+      globPatterns: ['**/*.{js,css,html,png,svg,woff,woff2,webmanifest}'],
+      // Session and API answers are never cached by the service worker.
+      runtimeCaching: [],
+      cleanupOutdatedCaches: true,
+    },
+    client: { installPrompt: false, periodicSyncForUpdates: 3600 },
+    devOptions: { enabled: false },
   },
   eslint: {
     config: { stylistic: false },
