@@ -1,0 +1,148 @@
+// The crew lead's daybook as the phone sees it: the server's last copy with every local change on top.
+// Screens read from here and save through here; nothing waits for the network.
+import { skipHydrate } from 'pinia'
+import type { DaySheetRecord, LiftRecord, MaterialDropRecord, RecordKind, TimeEntryRecord } from '~~/shared/schemas/daybook'
+import { recordSchemas } from '~~/shared/schemas/daybook'
+import type { Snapshot } from '~~/shared/types/snapshot'
+import { askPersistentStorage, idb } from '~/utils/idb'
+import type { LocalRecord, OutboxEntry } from '~/utils/outbox-types'
+import { mergeSnapshot, type SnapshotMeta } from '~/utils/snapshot-merge'
+import { shrinkPhoto } from '~/utils/photo-shrink'
+
+export type RecordState = 'on_phone' | 'sending' | 'saved' | 'attention'
+export interface PhotoView { id: string, caption: string | null, url: string, state: RecordState }
+type PhotoSubject = { type: 'day_sheet' | 'lift' | 'material_drop', id: string }
+
+export const useDaybookStore = defineStore('daybook', () => {
+  const ready = ref(false)
+  const meta = ref<SnapshotMeta | null>(null)
+  const records = ref<Record<string, LocalRecord>>({})
+  const outbox = useOutboxStore()
+  const photoUrls = new Map<string, string>()
+  const localPhotoUrls = ref<Record<string, string>>({})
+
+  async function reloadRecords(): Promise<void> {
+    records.value = Object.fromEntries(await idb.all<LocalRecord>('records'))
+    meta.value = await idb.get<SnapshotMeta>('meta', 'snapshot') ?? null
+    for (const entry of outbox.entries.filter(e => e.kind === 'photo' && !photoUrls.has(e.id))) {
+      const stored = await idb.get<{ bytes: ArrayBuffer, type: string }>('photos', entry.id)
+      if (stored) photoUrls.set(entry.id, URL.createObjectURL(new Blob([stored.bytes], { type: stored.type })))
+    }
+    localPhotoUrls.value = Object.fromEntries(photoUrls)
+  }
+
+  async function refreshFromServer(): Promise<void> {
+    if (!navigator.onLine) return
+    try {
+      const snapshot = await $fetch<Snapshot>('/api/daybook/snapshot')
+      await mergeSnapshot(snapshot, new Set(outbox.entries.map(e => e.key)))
+      await reloadRecords()
+    }
+    catch { /* offline or signed out: the phone's copy stands */ }
+  }
+
+  async function load(): Promise<void> {
+    if (ready.value) return
+    void askPersistentStorage()
+    await outbox.refresh()
+    ready.value = true
+    outbox.start()
+    await refreshFromServer()
+  }
+
+  const all = <K extends RecordKind>(kind: K) =>
+    Object.values(records.value).filter(r => r.kind === kind).map(r => r.record) as unknown as ({ id: string } & Record<string, unknown>)[]
+  const jobs = computed(() => meta.value?.jobs ?? [])
+  const roster = computed(() => meta.value?.roster ?? [])
+  const sheets = computed(() => all('day_sheet') as unknown as DaySheetRecord[])
+  const sheetFor = (jobId: string, workDate: string) => sheets.value.find(s => s.jobId === jobId && s.workDate === workDate)
+  const childrenOf = <T>(kind: RecordKind, sheetId: string) => all(kind).filter(r => r.daySheetId === sheetId) as unknown as T[]
+  const entriesOf = (sheetId: string) => childrenOf<TimeEntryRecord>('time_entry', sheetId)
+  const dropsOf = (sheetId: string) => childrenOf<MaterialDropRecord>('material_drop', sheetId)
+  const liftsOf = (sheetId: string) => childrenOf<LiftRecord>('lift', sheetId)
+  const reviewStateOf = (sheetId: string) => records.value[`day_sheet:${sheetId}`]?.reviewState
+
+  function lastCrewFor(jobId: string, beforeDate: string): { crewMemberId: string, hours: number }[] {
+    const earlier = sheets.value.filter(s => s.jobId === jobId && s.workDate < beforeDate && entriesOf(s.id).length > 0)
+      .sort((a, b) => b.workDate.localeCompare(a.workDate))[0]
+    return earlier ? entriesOf(earlier.id).map(e => ({ crewMemberId: e.crewMemberId, hours: e.hours })) : []
+  }
+
+  function stateOf(kind: RecordKind | 'photo', id: string): RecordState {
+    const state = outbox.stateOf(`${kind}:${id}`)
+    if (!state) return 'saved'
+    return state === 'sending' ? 'sending' : state === 'queued' ? 'on_phone' : 'attention'
+  }
+
+  function photosOf(subjectType: PhotoSubject['type'], subjectId: string): PhotoView[] {
+    const waiting = outbox.entries.filter((e: OutboxEntry) => e.kind === 'photo' && e.photo?.subjectType === subjectType && e.photo.subjectId === subjectId)
+      .map(e => ({ id: e.id, caption: e.photo?.caption ?? null, url: localPhotoUrls.value[e.id] ?? '', state: stateOf('photo', e.id) }))
+    const onServer = (meta.value?.photos ?? []).filter(p => p.subjectType === subjectType && p.subjectId === subjectId && !waiting.some(w => w.id === p.id))
+      .map(p => ({ id: p.id, caption: p.caption, url: `/api/photos/${p.id}/thumb`, state: 'saved' as const }))
+    return [...waiting, ...onServer]
+  }
+
+  function validated<K extends RecordKind>(kind: K, record: unknown) {
+    const result = recordSchemas[kind].safeParse(record)
+    if (!result.success) throw new Error(result.error.issues[0]?.message ?? 'Some fields need a look')
+    return result.data as { id: string } & Record<string, unknown>
+  }
+
+  const labels = {
+    day_sheet: (r: Record<string, unknown>) => `Day ${r.workDate}`,
+    time_entry: (r: Record<string, unknown>) => `Hours: ${roster.value.find(p => p.id === r.crewMemberId)?.name ?? 'crew'} ${r.hours} h`,
+    material_drop: (r: Record<string, unknown>) => `Drop: ${r.quantity} ${r.unit} ${r.material}`,
+    lift: (r: Record<string, unknown>) => `Lift: ${r.compactedIn} in ${r.material}`,
+  }
+  const save = (kind: RecordKind, record: unknown) => {
+    const clean = validated(kind, record)
+    return outbox.saveRecord(kind, clean, 'upsert', labels[kind](clean))
+  }
+
+  async function remove(kind: RecordKind, id: string): Promise<void> {
+    const local = records.value[`${kind}:${id}`]
+    if (local) await outbox.saveRecord(kind, { ...local.record, id }, 'delete', `Removed: ${labels[kind](local.record)}`)
+  }
+
+  async function setCrewHours(sheetId: string, wanted: { crewMemberId: string, hours: number }[]): Promise<void> {
+    const current = entriesOf(sheetId)
+    for (const entry of current.filter(e => !wanted.some(w => w.crewMemberId === e.crewMemberId))) await remove('time_entry', entry.id)
+    for (const w of wanted) {
+      const existing = current.find(e => e.crewMemberId === w.crewMemberId)
+      if (existing?.hours === w.hours) continue
+      await save('time_entry', { id: existing?.id ?? crypto.randomUUID(), daySheetId: sheetId, crewMemberId: w.crewMemberId, hours: w.hours })
+    }
+  }
+
+  async function logRainOut(input: { jobId: string, workDate: string, hoursLost: number, reason: string, crewMemberIds?: string[] }): Promise<DaySheetRecord> {
+    const existing = sheetFor(input.jobId, input.workDate)
+    const sheet = {
+      ...(existing ?? { id: crypto.randomUUID(), jobId: input.jobId, workDate: input.workDate }),
+      status: 'rain_out', hoursLost: input.hoursLost, hoursLostReason: input.reason,
+    } as DaySheetRecord
+    await save('day_sheet', sheet)
+    return sheet
+  }
+
+  async function addPhotos(files: File[], subject: PhotoSubject, caption?: string): Promise<void> {
+    const daySheetId = subject.type === 'day_sheet' ? subject.id : (records.value[`${subject.type}:${subject.id}`]?.record.daySheetId as string | undefined)
+    for (const file of files) {
+      const shrunk = await shrinkPhoto(file)
+      const id = crypto.randomUUID()
+      await outbox.savePhoto(id, shrunk.bytes, {
+        subjectType: subject.type, subjectId: subject.id, daySheetId, caption: caption || undefined,
+        takenAt: new Date(file.lastModified || Date.now()).toISOString(), type: shrunk.type, size: shrunk.bytes.byteLength, width: shrunk.width, height: shrunk.height,
+      }, `Photo${caption ? `: ${caption}` : ''}`)
+    }
+  }
+
+  return {
+    ready: skipHydrate(ready), jobs, roster, load, reloadRecords, refreshFromServer,
+    sheetFor, entriesOf, dropsOf, liftsOf, lastCrewFor, photosOf, stateOf, reviewStateOf,
+    saveDaySheet: (r: DaySheetRecord) => save('day_sheet', r),
+    saveLift: (r: LiftRecord) => save('lift', r),
+    saveDrop: (r: MaterialDropRecord) => save('material_drop', r),
+    setCrewHours, remove, logRainOut, addPhotos,
+    newId: () => crypto.randomUUID(),
+  }
+})

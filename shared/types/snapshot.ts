@@ -1,0 +1,50 @@
+// What GET /api/daybook/snapshot answers: the phone's offline copy of its jobs and recent days.
+import type { ZoneKind } from '../utils/daybook'
+
+export interface SnapshotZone {
+  id: string
+  jobId: string
+  name: string
+  kind: ZoneKind
+  designBaseDepthIn: number | null
+  baseExtensionIn: number | null
+  areaSqFt: number | null
+  lengthFt: number | null
+}
+
+export interface SnapshotJob {
+  id: string
+  name: string
+  customerName: string
+  siteAddress: string
+  status: string
+  startDate: string | null
+  crewSize: number
+  notes: string | null
+  crewDaysBid: number
+  zones: SnapshotZone[]
+}
+
+export interface SnapshotPhoto {
+  id: string
+  daySheetId: string | null
+  subjectType: 'day_sheet' | 'lift' | 'material_drop' | 'review_note'
+  subjectId: string
+  caption: string | null
+  takenAt: string | null
+  width: number
+  height: number
+}
+
+export type SnapshotRecord = Record<string, unknown> & { id: string, revision: number }
+
+export interface Snapshot {
+  fetchedAt: string
+  jobs: SnapshotJob[]
+  roster: { id: string, name: string, tradeRole: string | null }[]
+  daySheets: (SnapshotRecord & { reviewState: string })[]
+  timeEntries: SnapshotRecord[]
+  materialDrops: SnapshotRecord[]
+  lifts: SnapshotRecord[]
+  photos: SnapshotPhoto[]
+}
