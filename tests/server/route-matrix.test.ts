@@ -2,18 +2,20 @@
 // test until it has a line here, so none can be left unguarded.
 import { randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
+import { fetch } from '@nuxt/test-utils/e2e'
 import { useBuiltServer } from '../support/server'
 import { createCompany, uniqueEmail, type FixtureCompany } from '../support/fixtures'
 import { call, signIn, type Cookie } from '../support/http'
 import { apiRoutes } from '../support/api-routes'
 import { testDb } from '../support/db'
+import { phoneJpeg } from '../support/images'
 
 await useBuiltServer()
 
 const callers = ['anonymous', 'crewLead', 'foreman', 'office', 'otherOffice'] as const
 type Caller = (typeof callers)[number]
 type Expected = [anonymous: number, crewLead: number, foreman: number, office: number, otherOffice: number]
-interface Case { request: () => Promise<{ path: string, body?: unknown }>, expect: Expected }
+interface Case { request: () => Promise<{ path: string, body?: unknown, headers?: Record<string, string> }>, expect: Expected }
 
 let ours: FixtureCompany
 let theirs: FixtureCompany
@@ -25,6 +27,25 @@ async function openInvitation(): Promise<string> {
   return id
 }
 const fakeToken = 'x'.repeat(43)
+// A day sheet on our job, and one photo on it, made once when a photo case first needs them.
+let daySheet: Promise<string> | undefined
+const ourDaySheet = () => daySheet ??= (async () => {
+  const id = randomUUID()
+  await testDb()('day_sheets').insert({ id, job_id: ours.jobId, work_date: '2026-11-04', status: 'full_day' })
+  return id
+})()
+// Each upload gets a fresh photo id, so every caller's answer is a first upload (201), never a replay.
+const photoUpload = async () => ({
+  path: `/api/photos/${randomUUID()}?subjectType=day_sheet&subjectId=${await ourDaySheet()}`,
+  body: new Uint8Array(await phoneJpeg({ width: 64, height: 48 })),
+  headers: { 'content-type': 'image/jpeg' },
+})
+let ourPhoto: Promise<string> | undefined
+const photoOnOurDay = () => ourPhoto ??= (async () => {
+  const upload = await photoUpload()
+  const response = await fetch(upload.path, { method: 'PUT', body: upload.body, headers: { ...upload.headers, cookie: cookies.office ?? '' } })
+  return (await response.json()).photo.id as string
+})()
 const path = (p: string) => async () => ({ path: p })
 
 const cases: Record<string, Case> = {
@@ -45,6 +66,18 @@ const cases: Record<string, Case> = {
   'POST /api/profile/password': { request: async () => ({ path: '/api/profile/password', body: { currentPassword: 'not-mine', newPassword: 'long-enough-password' } }), expect: [401, 422, 422, 422, 422] },
   'GET /api/jobs': { request: path('/api/jobs'), expect: [401, 200, 200, 200, 200] },
   'GET /api/jobs/:id': { request: async () => ({ path: `/api/jobs/${ours.jobId}` }), expect: [401, 200, 200, 200, 404] },
+  // A batch for our job: another company's office gets 200 with the record rejected (tests/server/sync.test.ts).
+  'POST /api/sync': {
+    request: async () => ({
+      path: '/api/sync',
+      headers: { 'idempotency-key': randomUUID() },
+      body: { changes: [{ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id: randomUUID(), jobId: ours.jobId, workDate: '2026-10-01', status: 'rain_out', hoursLost: 8 } }] },
+    }),
+    expect: [401, 200, 200, 200, 200],
+  },
+  'GET /api/daybook/snapshot': { request: path('/api/daybook/snapshot'), expect: [401, 200, 200, 200, 200] },
+  'PUT /api/photos/:id': { request: photoUpload, expect: [401, 201, 201, 201, 404] },
+  'GET /api/photos/:id/:size': { request: async () => ({ path: `/api/photos/${await photoOnOurDay()}/thumb` }), expect: [401, 200, 200, 200, 404] },
 }
 
 beforeAll(async () => {
@@ -64,8 +97,11 @@ describe('route matrix', () => {
   for (const [route, c] of Object.entries(cases)) {
     const method = route.split(' ')[0] ?? 'GET'
     it.each(callers.map((caller, i) => [caller, c.expect[i]] as const))(`${route} as %s answers %i`, async (caller, status) => {
-      const { path: url, body } = await c.request()
-      const response = await call(method, url, { cookie: cookies[caller], body })
+      const { path: url, body, headers } = await c.request()
+      // Photo uploads send raw image bytes, which call() would turn into JSON.
+      const response = body instanceof Uint8Array
+        ? await fetch(url, { method, body: new Uint8Array(body), headers: { ...headers, ...(cookies[caller] ? { cookie: cookies[caller] } : {}) } })
+        : await call(method, url, { cookie: cookies[caller], body, headers })
       expect(response.status).toBe(status)
     })
   }
