@@ -2,7 +2,7 @@
 // sender at a time across tabs, and removes an entry only once the server has acknowledged it.
 // Network errors, 5xx, 408 and 429 are retried with exponential backoff and jitter; 400/422 park the
 // entry for the crew lead; 401 stops and keeps everything until they sign in again.
-import type { RecordKind, SyncAnswer } from '~~/shared/schemas/daybook'
+import type { RecordKind, SyncAnswer } from '../../shared/schemas/daybook'
 import { idb } from './idb'
 import type { InflightBatch, LocalRecord, OutboxEntry, OutboxProgress, OutboxStatus, PhotoMeta } from './outbox-types'
 

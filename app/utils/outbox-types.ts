@@ -1,4 +1,4 @@
-import type { RecordKind, SyncResult } from '~~/shared/schemas/daybook'
+import type { RecordKind, SyncResult } from '../../shared/schemas/daybook'
 
 export type OutboxKind = RecordKind | 'photo'
 export type EntryState = 'queued' | 'sending' | 'attention' | 'conflict'

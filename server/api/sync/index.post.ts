@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto'
 import { idempotencyKey, syncBatch, type SyncAnswer } from '../../../shared/schemas/daybook'
 
 export default defineEventHandler(async (event) => {
@@ -7,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const raw = await readRawBody(event, 'utf8') ?? ''
   const { changes } = await readBodyWith(event, syncBatch)
   assertDistinctRecords(changes)
-  const answer = await oncePerKey<SyncAnswer>(member.userId, key.data, requestHash(raw), async trx => ({ results: await applyChanges(trx, member, changes) }))
+  const answer = await oncePerKey<SyncAnswer>(member.userId, key.data, requestHash(raw), async trx => ({ results: await applyChanges(trx, member, changes, randomUUID()) }))
   setResponseStatus(event, answer.statusCode)
   if (answer.replayed) setResponseHeader(event, 'Idempotent-Replayed', 'true')
   return answer.body

@@ -69,7 +69,7 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   return { result: { ...base, status: 'applied', revision: 1 }, write: { kind, id: record.id, columns, revision: 1, op: 'insert' } }
 }
 
-export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[]): Promise<SyncResult[]> {
+export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[], batchId: string): Promise<SyncResult[]> {
   const ctx = await loadContext(trx, member, changes)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
@@ -99,11 +99,12 @@ export async function applyChanges(trx: Knex.Transaction, member: Member, change
     const ids = writes.filter(w => w.kind === kind && w.op === 'delete').map(w => w.id)
     if (ids.length) await trx(kindMaps[kind].table).whereIn('id', ids).delete()
   }
+  // One audit line per batch, listing every record it wrote (a week of a crew is a hundred records).
   if (writes.length) {
-    await trx('audit_log').insert(writes.map(w => ({
-      organisation_id: member.organisationId, actor_id: member.userId, action: `sync.${w.op}`, subject_type: w.kind, subject_id: w.id,
-      detail: JSON.stringify({ revision: w.revision }), created_at: now,
-    })))
+    await trx('audit_log').insert({
+      organisation_id: member.organisationId, actor_id: member.userId, action: 'sync.batch', subject_type: 'sync_batch', subject_id: batchId,
+      detail: JSON.stringify({ writes: writes.map(w => ({ kind: w.kind, id: w.id, op: w.op, revision: w.revision })) }), created_at: now,
+    })
   }
   return decisions.map(d => d.result)
 }

@@ -20,8 +20,8 @@ async function storedAnswer<T>(db: Knex | Knex.Transaction, userId: string, key:
 }
 
 export async function oncePerKey<T>(userId: string, key: string, hash: string, work: (trx: Knex.Transaction) => Promise<T>): Promise<StoredAnswer<T> & { replayed: boolean }> {
-  const earlier = await storedAnswer<T>(useDb(), userId, key, hash)
-  if (earlier) return { ...earlier, replayed: true }
+  // No look-up first: a repeat is rare, and the receipt's primary key catches it when the batch's own
+  // receipt is written (the repeat's work is then rolled back and the stored answer returned).
   try {
     return await useDb().transaction(async (trx) => {
       const body = await work(trx)
@@ -30,7 +30,7 @@ export async function oncePerKey<T>(userId: string, key: string, hash: string, w
     })
   }
   catch (error) {
-    // The same request arrived twice at once: the other copy committed first; answer as it did.
+    // A repeat of a request already answered (or arriving at the same moment): answer as the first did.
     if ((error as { code?: string }).code === 'ER_DUP_ENTRY') {
       const winner = await storedAnswer<T>(useDb(), userId, key, hash)
       if (winner) return { ...winner, replayed: true }
