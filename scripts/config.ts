@@ -68,6 +68,8 @@ export function serverEnv(database: string, extra: Record<string, string> = {}):
     NUXT_MAIL_SMTP_HOST: mailSettings.smtpHost,
     NUXT_MAIL_SMTP_PORT: String(mailSettings.smtpPort),
     NUXT_PHOTOS_DIR: env.NUXT_PHOTOS_DIR || resolve(dataDir, 'photos'),
+    // glibc's per-thread malloc arenas make sharp's memory grow without bound (sharp's install docs).
+    MALLOC_ARENA_MAX: env.MALLOC_ARENA_MAX || '2',
     ...extra,
   }
 }

@@ -11,6 +11,23 @@ import { photoContentTypes, type PhotoRecord, type PhotoSizeName, type PhotoSubj
 sharp.cache(false)
 
 export const photoBodyLimit = 20 * 1024 * 1024
+
+// A 12-megapixel photo takes some 100 MB to decode and resize: with eight crews' phones uploading at
+// once, two at a time keep the server's memory bounded while the others wait their turn.
+const decodeSlots = 2
+let decoding = 0
+const waitingForSlot: (() => void)[] = []
+async function decodeSlot<T>(work: () => Promise<T>): Promise<T> {
+  if (decoding >= decodeSlots) await new Promise<void>(resolve => waitingForSlot.push(resolve))
+  decoding++
+  try {
+    return await work()
+  }
+  finally {
+    decoding--
+    waitingForSlot.shift()?.()
+  }
+}
 // Phone cameras save 12–50 MP by default; anything larger is refused before it is decoded.
 const maxInputPixels = 50_000_000
 const sharpInput = { limitInputPixels: maxInputPixels, failOn: 'error' } as const
@@ -37,7 +54,7 @@ export async function ingestPhoto(event: H3Event, member: Member, id: string, qu
   return await oneAtATime(id, async () => {
     const stored = await useDb()('photos').where({ id }).first<PhotoRow | undefined>()
     if (stored) return { status: 200, photo: replayOf(stored, query) }
-    const image = await processImage(await readLimitedBody(event))
+    const image = await decodeSlot(async () => processImage(await readLimitedBody(event)))
     const keys = photoKeys(member.organisationId, id)
     const row = {
       id, organisation_id: member.organisationId, job_id: subject.jobId, day_sheet_id: subject.daySheetId,
