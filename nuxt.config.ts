@@ -26,6 +26,10 @@ export default defineNuxtConfig({
         { name: 'description', content: 'The daybook for hardscape crews, their foreman and the office.' },
         { name: 'theme-color', content: '#1f3a2e' },
       ],
+      link: [
+        { rel: 'icon', type: 'image/png', sizes: '32x32', href: '/icons/tamp-32.png' },
+        { rel: 'apple-touch-icon', sizes: '180x180', href: '/icons/tamp-apple-touch-180.png' },
+      ],
     },
   },
   runtimeConfig: {
@@ -97,6 +101,9 @@ export default defineNuxtConfig({
     strategy: 'no_prefix',
     detectBrowserLanguage: { useCookie: true, cookieKey: 'tamp_locale', fallbackLocale: 'en', redirectOn: 'no prefix' },
   },
+  // The prerendered /shell would otherwise get a payload file with `data: undefined` that Nuxt copies
+  // over every page's data (see nuxt/nuxt#34865): no payload extraction, /shell is the only prerender.
+  experimental: { payloadExtraction: false },
   routeRules: {
     // A page shell rendered without data, precached by the service worker and answered for every
     // navigation offline (SSR pages cannot be precached: see ../shared/STACK.md).
