@@ -2,18 +2,21 @@
 // with no signal (see app/plugins/session-offline.client.ts). Only what the screens show and the
 // role checks need: never the e-mail, a token or anything from the session cookie.
 import type { User } from '#auth-utils'
-import { z } from 'zod'
-import { locale, role } from '~~/shared/schemas/auth'
+import { roles } from '~~/shared/utils/daybook'
 
 export const sessionCacheKey = 'tamp:session-user'
 
-const cachedUser = z.object({
-  id: z.string().min(1),
-  name: z.string(),
-  role,
-  organisationId: z.string().min(1),
-  locale,
-})
+// Checked by hand rather than with zod: this runs in the entry chunk of every page, and zod would
+// add a large share of the Today page's first-load JavaScript.
+const cachedUser = {
+  safeParse(value: unknown): { success: true, data: User } | { success: false } {
+    const v = value as Partial<Record<keyof User, unknown>> | null
+    const ok = !!v && typeof v.id === 'string' && v.id.length > 0 && typeof v.name === 'string'
+      && roles.includes(v.role as User['role']) && typeof v.organisationId === 'string' && v.organisationId.length > 0
+      && (v.locale === 'en' || v.locale === 'es')
+    return ok ? { success: true, data: v as User } : { success: false }
+  },
+}
 
 /** The cached user, or null when there is none or it was written by an older, different shape. */
 export function readCachedSessionUser(): User | null {
