@@ -121,6 +121,11 @@ export const useDaybookStore = defineStore('daybook', () => {
       status: 'rain_out', hoursLost: input.hoursLost, hoursLostReason: input.reason,
     } as DaySheetRecord
     await save('day_sheet', sheet)
+    // The crew that showed up is recorded as present with 0 hours; hours already logged stay.
+    if (input.crewMemberIds) {
+      const logged = new Map(entriesOf(sheet.id).map(e => [e.crewMemberId, e.hours]))
+      await setCrewHours(sheet.id, input.crewMemberIds.map(crewMemberId => ({ crewMemberId, hours: logged.get(crewMemberId) ?? 0 })))
+    }
     return sheet
   }
 

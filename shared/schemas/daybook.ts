@@ -31,7 +31,8 @@ export const timeEntryRecord = z.strictObject({
   id,
   daySheetId: id,
   crewMemberId: id,
-  hours: number(0.25, 24, 'hours'),
+  // 0 hours: on site for a rain-out and sent home (counted as present, not as person-hours).
+  hours: number(0, 24, 'hours'),
 })
 
 export const materialDropRecord = z.strictObject({
