@@ -1,7 +1,7 @@
 // The crew lead's daybook as the phone sees it: the server's last copy with every local change on top.
 // Screens read from here and save through here; nothing waits for the network.
 import { skipHydrate } from 'pinia'
-import type { DaySheetRecord, LiftRecord, MaterialDropRecord, RecordKind, TimeEntryRecord } from '~~/shared/schemas/daybook'
+import type { DaySheetRecord, LiftRecord, MaterialDropRecord, MaterialEstimateRecord, RecordKind, TimeEntryRecord, ZoneRecord } from '~~/shared/schemas/daybook'
 import { recordSchemas } from '~~/shared/schemas/daybook'
 import type { Snapshot } from '~~/shared/types/snapshot'
 import { askPersistentStorage, idb } from '~/utils/idb'
@@ -62,6 +62,10 @@ export const useDaybookStore = defineStore('daybook', () => {
   const liftsOf = (sheetId: string) => childrenOf<LiftRecord>('lift', sheetId)
   const reviewStateOf = (sheetId: string) => records.value[`day_sheet:${sheetId}`]?.reviewState
 
+  /** A job's zones with the phone's pending edits on top (the Plan screen writes design values here). */
+  const zonesOf = (jobId: string) => (all('zone') as unknown as ZoneRecord[]).filter(z => z.jobId === jobId).sort((a, b) => a.name.localeCompare(b.name))
+  const estimatesOf = (jobId: string) => (all('material_estimate') as unknown as MaterialEstimateRecord[]).filter(e => e.jobId === jobId)
+
   function lastCrewFor(jobId: string, beforeDate: string): { crewMemberId: string, hours: number }[] {
     const earlier = sheets.value.filter(s => s.jobId === jobId && s.workDate < beforeDate && entriesOf(s.id).length > 0)
       .sort((a, b) => b.workDate.localeCompare(a.workDate))[0]
@@ -88,7 +92,9 @@ export const useDaybookStore = defineStore('daybook', () => {
     return result.data as { id: string } & Record<string, unknown>
   }
 
-  const labels = {
+  const labels: Record<RecordKind, (r: Record<string, unknown>) => string> = {
+    zone: (r: Record<string, unknown>) => `Zone: ${r.name}`,
+    material_estimate: (r: Record<string, unknown>) => `Estimate: ${r.quantity} ${r.unit} ${r.material}`,
     day_sheet: (r: Record<string, unknown>) => `Day ${r.workDate}`,
     time_entry: (r: Record<string, unknown>) => `Hours: ${roster.value.find(p => p.id === r.crewMemberId)?.name ?? 'crew'} ${r.hours} h`,
     material_drop: (r: Record<string, unknown>) => `Drop: ${r.quantity} ${r.unit} ${r.material}`,
@@ -147,6 +153,9 @@ export const useDaybookStore = defineStore('daybook', () => {
     saveDaySheet: (r: DaySheetRecord) => save('day_sheet', r),
     saveLift: (r: LiftRecord) => save('lift', r),
     saveDrop: (r: MaterialDropRecord) => save('material_drop', r),
+    saveZone: (r: ZoneRecord) => save('zone', r),
+    saveEstimate: (r: MaterialEstimateRecord) => save('material_estimate', r),
+    zonesOf, estimatesOf,
     setCrewHours, remove, logRainOut, addPhotos,
     newId: () => crypto.randomUUID(),
   }

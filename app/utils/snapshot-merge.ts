@@ -4,8 +4,9 @@ import type { Snapshot } from '~~/shared/types/snapshot'
 import { idb } from './idb'
 import type { LocalRecord } from './outbox-types'
 
-const lists: [RecordKind, keyof Pick<Snapshot, 'daySheets' | 'timeEntries' | 'materialDrops' | 'lifts'>][] = [
-  ['day_sheet', 'daySheets'], ['time_entry', 'timeEntries'], ['material_drop', 'materialDrops'], ['lift', 'lifts'],
+type RecordLists = 'zoneRecords' | 'materialEstimates' | 'daySheets' | 'timeEntries' | 'materialDrops' | 'lifts'
+const lists: [RecordKind, RecordLists][] = [
+  ['zone', 'zoneRecords'], ['material_estimate', 'materialEstimates'], ['day_sheet', 'daySheets'], ['time_entry', 'timeEntries'], ['material_drop', 'materialDrops'], ['lift', 'lifts'],
 ]
 
 export async function mergeSnapshot(snapshot: Snapshot, waiting: Set<string>): Promise<void> {
@@ -21,8 +22,8 @@ export async function mergeSnapshot(snapshot: Snapshot, waiting: Set<string>): P
   const gone = local.filter(([key, r]) => r.revision !== null && !fromServer.has(key) && !waiting.has(key)).map(([key]) => key)
   await idb.removeMany('records', gone)
   await idb.putMany('records', [...fromServer].filter(([key]) => !waiting.has(key)))
-  const { daySheets: _s, timeEntries: _t, materialDrops: _d, lifts: _l, ...rest } = snapshot
+  const { zoneRecords: _z, materialEstimates: _e, daySheets: _s, timeEntries: _t, materialDrops: _d, lifts: _l, ...rest } = snapshot
   await idb.put('meta', 'snapshot', rest)
 }
 
-export type SnapshotMeta = Omit<Snapshot, 'daySheets' | 'timeEntries' | 'materialDrops' | 'lifts'>
+export type SnapshotMeta = Omit<Snapshot, RecordLists>

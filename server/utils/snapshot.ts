@@ -28,7 +28,9 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
   ])
   const daySheets: Snapshot['daySheets'] = sheetRows.map((row: Record<string, unknown>) => ({ ...fromRow('day_sheet', row), id: row.id as string, revision: row.revision as number, reviewState: row.review_state as string }))
   const sheetIds = sheetRows.map(row => row.id as string)
-  const [timeEntries, materialDrops, lifts, photos] = await Promise.all([
+  const [zoneRecords, materialEstimates, timeEntries, materialDrops, lifts, photos] = await Promise.all([
+    recordsOf('zone', 'job_id', jobIds),
+    recordsOf('material_estimate', 'job_id', jobIds),
     recordsOf('time_entry', 'day_sheet_id', sheetIds),
     recordsOf('material_drop', 'day_sheet_id', sheetIds),
     recordsOf('lift', 'day_sheet_id', sheetIds),
@@ -38,6 +40,8 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
     fetchedAt: new Date().toISOString(),
     jobs: jobs.map(job => ({ ...job, zones: zones.filter(z => z.jobId === job.id) })),
     roster,
+    zoneRecords,
+    materialEstimates,
     daySheets,
     timeEntries,
     materialDrops,

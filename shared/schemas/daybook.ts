@@ -1,6 +1,6 @@
 // The records a crew lead's phone creates, as the phone saves them and the sync route checks them.
 import { z } from 'zod'
-import { dayStatuses } from '../utils/daybook'
+import { dayStatuses, zoneKinds } from '../utils/daybook'
 
 const id = z.uuid('Not a valid id')
 const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`)
@@ -57,7 +57,31 @@ export const liftRecord = z.strictObject({
   moistureNote: optionalText(255),
 }).refine(lift => lift.compactedIn <= lift.looseIn, { message: 'Compacted thickness cannot exceed the loose thickness', path: ['compactedIn'] })
 
+/** A zone's design values, written from the Plan screen by the foreman or the office. */
+export const zoneRecord = z.strictObject({
+  id,
+  jobId: id,
+  name: text(120).min(1, 'Name the zone'),
+  kind: z.enum(zoneKinds, { error: 'Choose the kind of zone' }),
+  designBaseDepthIn: number(0, 36, 'in').nullable().optional(),
+  areaSqFt: number(0, 1_000_000, 'sq ft').nullable().optional(),
+  lengthFt: number(0, 100_000, 'ft').nullable().optional(),
+  baseExtensionIn: number(0, 48, 'in').nullable().optional(),
+  notes: optionalText(4000),
+})
+
+/** One line of a job's material estimate. */
+export const materialEstimateRecord = z.strictObject({
+  id,
+  jobId: id,
+  material: text(120).min(1, 'Name the material'),
+  quantity: number(0.01, 1_000_000, ''),
+  unit: text(20).min(1, 'Give the unit'),
+})
+
 export const recordSchemas = {
+  zone: zoneRecord,
+  material_estimate: materialEstimateRecord,
   day_sheet: daySheetRecord,
   time_entry: timeEntryRecord,
   material_drop: materialDropRecord,
@@ -70,7 +94,9 @@ export type DaySheetRecord = z.infer<typeof daySheetRecord>
 export type TimeEntryRecord = z.infer<typeof timeEntryRecord>
 export type MaterialDropRecord = z.infer<typeof materialDropRecord>
 export type LiftRecord = z.infer<typeof liftRecord>
-export interface RecordOf { day_sheet: DaySheetRecord, time_entry: TimeEntryRecord, material_drop: MaterialDropRecord, lift: LiftRecord }
+export type ZoneRecord = z.infer<typeof zoneRecord>
+export type MaterialEstimateRecord = z.infer<typeof materialEstimateRecord>
+export interface RecordOf { day_sheet: DaySheetRecord, time_entry: TimeEntryRecord, material_drop: MaterialDropRecord, lift: LiftRecord, zone: ZoneRecord, material_estimate: MaterialEstimateRecord }
 
 /** One change the phone sends: the record as it is now, and the server revision it was edited from. */
 const change = <K extends RecordKind>(kind: K) => z.strictObject({
@@ -81,7 +107,7 @@ const change = <K extends RecordKind>(kind: K) => z.strictObject({
   record: recordSchemas[kind],
 })
 
-export const syncChange = z.discriminatedUnion('kind', [change('day_sheet'), change('time_entry'), change('material_drop'), change('lift')])
+export const syncChange = z.discriminatedUnion('kind', [change('day_sheet'), change('time_entry'), change('material_drop'), change('lift'), change('zone'), change('material_estimate')])
 export type SyncChange = z.infer<typeof syncChange>
 
 export const syncBatch = z.strictObject({

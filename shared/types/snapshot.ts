@@ -42,6 +42,9 @@ export interface Snapshot {
   fetchedAt: string
   jobs: SnapshotJob[]
   roster: { id: string, name: string, tradeRole: string | null }[]
+  /** The zones again as records with revisions, for editing their design values offline. */
+  zoneRecords: SnapshotRecord[]
+  materialEstimates: SnapshotRecord[]
   daySheets: (SnapshotRecord & { reviewState: string })[]
   timeEntries: SnapshotRecord[]
   materialDrops: SnapshotRecord[]

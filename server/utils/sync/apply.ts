@@ -16,18 +16,27 @@ function placeOf(change: SyncChange, ctx: BatchContext, existingRow: Row | undef
   if (change.kind === 'day_sheet') {
     return { jobId: change.record.jobId, sheet: existingRow }
   }
+  if (change.kind === 'zone' || change.kind === 'material_estimate') return { jobId: change.record.jobId, sheet: undefined }
   const sheetId = change.record.daySheetId
   const sheet = ctx.sheets.get(sheetId) ?? newSheets.get(sheetId)
   return { jobId: sheet?.job_id as string | undefined, sheet }
 }
 
-function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Row>, claimed: Set<string>): { result: SyncResult, write?: Write } {
+const planKinds = new Set<SyncChange['kind']>(['zone', 'material_estimate'])
+
+function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Row>, claimed: Set<string>, member: Member): { result: SyncResult, write?: Write } {
   const { kind, record } = change
   const base = { kind, id: record.id }
+  if (planKinds.has(kind) && member.role === 'crew_lead') {
+    return { result: { ...base, status: 'rejected', message: 'Only the foreman or the office can change the job\'s plan' } }
+  }
+  if (kind === 'zone' && change.op === 'delete') {
+    return { result: { ...base, status: 'rejected', message: 'Zones are removed by the office from the job setup' } }
+  }
   const row = ctx.existing[kind].get(record.id)
   const { jobId, sheet } = placeOf(change, ctx, row, newSheets)
   if (!jobId || !ctx.visibleJobs.has(jobId)) {
-    return { result: { ...base, status: 'rejected', message: kind === 'day_sheet' ? 'No such job' : 'The day sheet of this entry is not on the server' } }
+    return { result: { ...base, status: 'rejected', message: kind === 'day_sheet' || planKinds.has(kind) ? 'No such job' : 'The day sheet of this entry is not on the server' } }
   }
   const server = row ? fromRow(kind, row) : null
   if (row && kindMaps[kind].fixed.some(key => JSON.stringify(server?.[key]) !== JSON.stringify((record as Record<string, unknown>)[key]))) {
@@ -59,9 +68,13 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   if (change.baseRevision !== null) {
     return { result: { ...base, status: 'conflict', server: null, message: 'This entry was removed on the server' } }
   }
-  const natural = change.kind === 'day_sheet' ? `${change.record.jobId}|${change.record.workDate}` : change.kind === 'time_entry' ? `${change.record.daySheetId}|${change.record.crewMemberId}` : undefined
+  const natural = change.kind === 'day_sheet'
+    ? `${change.record.jobId}|${change.record.workDate}`
+    : change.kind === 'time_entry'
+      ? `${change.record.daySheetId}|${change.record.crewMemberId}`
+      : change.kind === 'material_estimate' ? `${change.record.jobId}|${change.record.material}|${change.record.unit}` : undefined
   if (natural && (ctx.naturalKeys.has(natural) || claimed.has(natural))) {
-    const message = change.kind === 'day_sheet' ? 'This job already has a day sheet for that date' : 'This person already has hours on this day'
+    const message = change.kind === 'day_sheet' ? 'This job already has a day sheet for that date' : change.kind === 'time_entry' ? 'This person already has hours on this day' : 'The estimate already has this material in this unit'
     return { result: { ...base, status: 'conflict', server: null, message } }
   }
   if (natural) claimed.add(natural)
@@ -73,7 +86,7 @@ export async function applyChanges(trx: Knex.Transaction, member: Member, change
   const ctx = await loadContext(trx, member, changes)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
-  const decisions = changes.map(change => decide(change, ctx, newSheets, claimed))
+  const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member))
   const writes = decisions.flatMap(d => d.write ? [d.write] : [])
   const now = new Date()
 

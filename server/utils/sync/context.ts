@@ -39,7 +39,7 @@ export async function loadContext(trx: Knex.Transaction, member: Member, changes
   existing.day_sheet = new Map(sheetRows.filter(r => batchSheetIds.has(r.id)).map(r => [r.id, r]))
   for (const row of sheetRows) naturalKeys.set(`${row.job_id}|${row.work_date}`, row.id)
 
-  for (const kind of ['material_drop', 'lift'] as const) {
+  for (const kind of ['material_drop', 'lift', 'zone', 'material_estimate'] as const) {
     const ids = ofKind(kind).map(c => c.record.id)
     const rows: Row[] = ids.length ? await trx(kindMaps[kind].table).whereIn('id', ids).forUpdate() : []
     existing[kind] = new Map(rows.map(r => [r.id, r]))
@@ -55,7 +55,14 @@ export async function loadContext(trx: Knex.Transaction, member: Member, changes
   existing.time_entry = new Map(entryRows.filter(r => entryIds.has(r.id)).map(r => [r.id, r]))
   for (const row of entryRows) naturalKeys.set(`${row.day_sheet_id}|${row.crew_member_id}`, row.id)
 
-  const children = changes.filter(c => c.kind !== 'day_sheet')
+  const estimates = ofKind('material_estimate')
+  if (estimates.length) {
+    for (const row of await trx('material_estimates').whereIn(['job_id', 'material', 'unit'], estimates.map(c => [c.record.jobId, c.record.material, c.record.unit])).select('id', 'job_id', 'material', 'unit')) {
+      naturalKeys.set(`${row.job_id}|${row.material}|${row.unit}`, row.id)
+    }
+  }
+  const planChanges = [...ofKind('zone'), ...estimates]
+  const children = changes.filter(c => c.kind !== 'day_sheet' && c.kind !== 'zone' && c.kind !== 'material_estimate')
   const sheetIds = unique([
     ...children.map(c => (c.record as { daySheetId: string }).daySheetId),
     ...children.map(c => existing[c.kind].get(c.record.id)?.day_sheet_id),
@@ -68,7 +75,7 @@ export async function loadContext(trx: Knex.Transaction, member: Member, changes
     ? await trx('zones').whereIn('id', zoneIds).select('id', 'job_id', trx.raw('(SELECT MAX(sequence) FROM lifts WHERE lifts.zone_id = zones.id) AS top'))
     : []
 
-  const jobIds = unique([...sheetChanges.map(c => c.record.jobId), ...[...sheets.values()].map(s => s.job_id)])
+  const jobIds = unique([...sheetChanges.map(c => c.record.jobId), ...planChanges.map(c => c.record.jobId), ...[...sheets.values()].map(s => s.job_id)])
   const [visible, crew]: [string[], string[]] = await Promise.all([
     jobIds.length ? visibleJobs(member).whereIn('jobs.id', jobIds).pluck('jobs.id') : [],
     crewQuery,

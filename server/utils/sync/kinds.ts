@@ -14,7 +14,10 @@ interface KindMap {
   keys: string[]
 }
 
+// Listed in the order rows are inserted: what others refer to comes first.
 export const kindMaps: Record<RecordKind, KindMap> = {
+  zone: { table: 'zones', fixed: ['jobId'], keys: ['id', 'jobId', 'name', 'kind', 'designBaseDepthIn', 'areaSqFt', 'lengthFt', 'baseExtensionIn', 'notes'] },
+  material_estimate: { table: 'material_estimates', fixed: ['jobId'], keys: ['id', 'jobId', 'material', 'quantity', 'unit'] },
   day_sheet: {
     table: 'day_sheets',
     fixed: ['jobId', 'workDate'],
