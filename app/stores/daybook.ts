@@ -2,7 +2,6 @@
 // Screens read from here and save through here; nothing waits for the network.
 import { skipHydrate } from 'pinia'
 import type { DaySheetRecord, LiftRecord, MaterialDropRecord, MaterialEstimateRecord, RecordKind, TimeEntryRecord, ZoneRecord } from '~~/shared/schemas/daybook'
-import { recordSchemas } from '~~/shared/schemas/daybook'
 import type { Snapshot } from '~~/shared/types/snapshot'
 import { askPersistentStorage, idb } from '~/utils/idb'
 import type { LocalRecord, OutboxEntry } from '~/utils/outbox-types'
@@ -86,7 +85,9 @@ export const useDaybookStore = defineStore('daybook', () => {
     return [...waiting, ...onServer]
   }
 
-  function validated<K extends RecordKind>(kind: K, record: unknown) {
+  // The schemas (and zod with them) load on the first save, not with the Today page.
+  async function validated<K extends RecordKind>(kind: K, record: unknown) {
+    const { recordSchemas } = await import('~~/shared/schemas/daybook')
     const result = recordSchemas[kind].safeParse(record)
     if (!result.success) throw new Error(result.error.issues[0]?.message ?? 'Some fields need a look')
     return result.data as { id: string } & Record<string, unknown>
@@ -100,9 +101,9 @@ export const useDaybookStore = defineStore('daybook', () => {
     material_drop: (r: Record<string, unknown>) => `Drop: ${r.quantity} ${r.unit} ${r.material}`,
     lift: (r: Record<string, unknown>) => `Lift: ${r.compactedIn} in ${r.material}`,
   }
-  const save = (kind: RecordKind, record: unknown) => {
-    const clean = validated(kind, record)
-    return outbox.saveRecord(kind, clean, 'upsert', labels[kind](clean))
+  const save = async (kind: RecordKind, record: unknown) => {
+    const clean = await validated(kind, record)
+    return await outbox.saveRecord(kind, clean, 'upsert', labels[kind](clean))
   }
 
   async function remove(kind: RecordKind, id: string): Promise<void> {

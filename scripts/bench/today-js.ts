@@ -1,6 +1,6 @@
 // The Today page's first-load JavaScript, gzipped, as a phone would fetch it from the build.
 import { gzipSync } from 'node:zlib'
-import { chromium } from 'playwright-core'
+import { chromium, type Request } from 'playwright-core'
 import { ensureDebianPackage } from '../debian'
 
 export async function measureTodayJs(url: string, email: string, password: string): Promise<number> {
@@ -11,15 +11,23 @@ export async function measureTodayJs(url: string, email: string, password: strin
     const signedIn = await context.request.post(`${url}/api/auth/sign-in`, { data: { email, password } })
     if (!signedIn.ok()) throw new Error(`sign-in for the JS measure answered ${signedIn.status()}`)
     const page = await context.newPage()
-    let bytes = 0
-    page.on('response', (response) => {
-      if (response.request().resourceType() !== 'script') return
-      void response.body().then((body) => {
-        bytes += gzipSync(body).length
-      }).catch(() => {})
+    // First-load JavaScript: the scripts requested before the load event; chunks that NuxtLink
+    // prefetches for other pages once the page is idle are not part of it.
+    let loaded = false
+    const scripts: Request[] = []
+    page.on('load', () => {
+      loaded = true
     })
-    await page.goto(`${url}/today`, { waitUntil: 'networkidle' })
-    await page.waitForTimeout(500)
+    page.on('request', (request) => {
+      if (!loaded && request.resourceType() === 'script') scripts.push(request)
+    })
+    await page.goto(`${url}/today`, { waitUntil: 'load' })
+    await page.waitForLoadState('networkidle')
+    let bytes = 0
+    for (const request of scripts) {
+      const body = await (await request.response())?.body()
+      if (body) bytes += gzipSync(body).length
+    }
     return bytes / 1024
   }
   finally {
