@@ -4,6 +4,10 @@ import { defineConfig } from 'vitest/config'
 // `npm test` (scripts/test.ts) prepares the database and the build before vitest starts.
 export default defineConfig({
   test: {
+    // One file at a time across all suites: server and browser files each start a built server on a
+    // free port, and two of them picking ports at once can collide.
+    fileParallelism: false,
+    maxWorkers: 1,
     projects: [
       {
         test: {
