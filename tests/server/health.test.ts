@@ -18,4 +18,9 @@ describe('health', () => {
     expect(html).toContain('Sign in to your daybook')
     expect(html).toContain('name="password"')
   })
+
+  it('has no development mail inbox in the production build, so no one can read caught invitations', async () => {
+    expect((await fetch('/api/dev/mail')).status).toBe(404)
+    expect((await fetch('/dev/mail')).status).toBe(404)
+  })
 })
