@@ -130,8 +130,9 @@ export default defineNuxtConfig({
       navigateFallback: '/shell',
       navigateFallbackDenylist: [/^\/api\//],
       globPatterns: ['**/*.{js,css,html,png,svg,woff,woff2,webmanifest}'],
-      // Session and API answers are never cached by the service worker.
-      runtimeCaching: [],
+      // Session and API answers are never cached by the service worker; only the translations, which
+      // @nuxtjs/i18n serves from /_i18n/<build hash>/, so that a crew lead's language opens offline.
+      runtimeCaching: [{ urlPattern: /\/_i18n\//, handler: 'StaleWhileRevalidate', options: { cacheName: 'tamp-i18n' } }],
       cleanupOutdatedCaches: true,
     },
     client: { installPrompt: false, periodicSyncForUpdates: 3600 },
