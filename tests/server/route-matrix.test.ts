@@ -47,6 +47,20 @@ const photoOnOurDay = () => ourPhoto ??= (async () => {
   return (await response.json()).photo.id as string
 })()
 const path = (p: string) => async () => ({ path: p })
+// Each review decision gets a day of its own (and a flag on it), so every caller's answer is a first decision.
+let reviewDays = 0
+const freshDay = async (reviewState = 'waiting') => {
+  const id = randomUUID()
+  const workDate = new Date(Date.UTC(2025, 0, 1 + reviewDays++)).toISOString().slice(0, 10)
+  await testDb()('day_sheets').insert({ id, job_id: ours.jobId, work_date: workDate, status: 'full_day', review_state: reviewState })
+  return id
+}
+const freshFlag = async () => {
+  const day = await freshDay('flagged')
+  const id = randomUUID()
+  await testDb()('review_notes').insert({ id, organisation_id: ours.organisationId, job_id: ours.jobId, day_sheet_id: day, subject_type: 'day_sheet', subject_id: day, kind: 'flag', reason: 'other', body: 'Matrix flag' })
+  return id
+}
 
 const cases: Record<string, Case> = {
   'GET /api/health': { request: path('/api/health'), expect: [200, 200, 200, 200, 200] },
@@ -77,6 +91,12 @@ const cases: Record<string, Case> = {
   },
   'GET /api/daybook/snapshot': { request: path('/api/daybook/snapshot'), expect: [401, 200, 200, 200, 200] },
   'PUT /api/photos/:id': { request: photoUpload, expect: [401, 201, 201, 201, 404] },
+  'GET /api/review': { request: path('/api/review'), expect: [401, 403, 200, 200, 200] },
+  'GET /api/days/:id': { request: async () => ({ path: `/api/days/${await ourDaySheet()}` }), expect: [401, 403, 200, 200, 404] },
+  'POST /api/days/:id/approve': { request: async () => ({ path: `/api/days/${await freshDay()}/approve`, body: {} }), expect: [401, 403, 200, 200, 404] },
+  'POST /api/days/:id/reopen': { request: async () => ({ path: `/api/days/${await freshDay('approved')}/reopen`, body: {} }), expect: [401, 403, 200, 200, 404] },
+  'POST /api/flags': { request: async () => ({ path: '/api/flags', body: { subjectType: 'day_sheet', subjectId: await freshDay(), reason: 'recompact', note: 'Matrix' } }), expect: [401, 403, 201, 201, 404] },
+  'POST /api/flags/:id/resolve': { request: async () => ({ path: `/api/flags/${await freshFlag()}/resolve`, body: {} }), expect: [401, 403, 200, 200, 404] },
   'GET /api/photos/:id/:size': { request: async () => ({ path: `/api/photos/${await photoOnOurDay()}/thumb` }), expect: [401, 200, 200, 200, 404] },
 }
 

@@ -1,0 +1,83 @@
+// What the foreman reads at night: the days waiting across their jobs, and one day in full.
+import type { Member } from '../members'
+import type { ReviewDay, ReviewList, ReviewListDay, ReviewNoteView } from '../../../shared/schemas/review'
+
+/** Days still to look at: never reviewed, reopened, or carrying a flag. */
+const openStates = ['waiting', 'reopened', 'flagged']
+
+const iso = (value: unknown) => value instanceof Date ? value.toISOString() : value === null || value === undefined ? null : String(value)
+const photoUrls = (id: string) => ({ thumbUrl: `/api/photos/${id}/thumb`, displayUrl: `/api/photos/${id}/display` })
+
+export async function reviewListFor(member: Member): Promise<ReviewList> {
+  const db = useDb()
+  const count = (sql: string) => db.raw(sql)
+  const rows: (Omit<ReviewListDay, 'crew' | 'lifts' | 'photos' | 'openFlags' | 'answeredFlags'> & Record<'crew' | 'lifts' | 'photos' | 'openFlags' | 'answeredFlags', number | string>)[] = await visibleJobs(member)
+    .join('day_sheets as s', 's.job_id', 'jobs.id')
+    .leftJoin('users as u', 'u.id', 's.author_id')
+    .whereIn('s.review_state', openStates)
+    .orderBy([{ column: 's.work_date', order: 'desc' }, { column: 'jobs.name' }])
+    .limit(500)
+    .select(
+      's.id', 'jobs.id as jobId', 'jobs.name as jobName', 's.work_date as workDate', 's.status', 's.review_state as reviewState', 'u.name as authorName',
+      count('(SELECT COUNT(*) FROM time_entries t WHERE t.day_sheet_id = s.id) AS crew'),
+      count('(SELECT COUNT(*) FROM lifts l WHERE l.day_sheet_id = s.id) AS lifts'),
+      count('(SELECT COUNT(*) FROM photos p WHERE p.day_sheet_id = s.id) AS photos'),
+      count(`(SELECT COUNT(*) FROM review_notes f WHERE f.day_sheet_id = s.id AND f.kind = 'flag' AND f.resolved_at IS NULL) AS openFlags`),
+      count(`(SELECT COUNT(*) FROM review_notes f WHERE f.day_sheet_id = s.id AND f.kind = 'flag' AND f.resolved_at IS NULL
+        AND EXISTS (SELECT 1 FROM review_notes a WHERE a.parent_id = f.id AND a.kind = 'answer')) AS answeredFlags`),
+    )
+  const days = rows.map(row => ({ ...row, crew: Number(row.crew), lifts: Number(row.lifts), photos: Number(row.photos), openFlags: Number(row.openFlags), answeredFlags: Number(row.answeredFlags) }))
+  const jobs = new Map<string, ReviewList['jobs'][number]>()
+  for (const day of days) {
+    const job = jobs.get(day.jobId) ?? { id: day.jobId, name: day.jobName, waiting: 0, flagged: 0 }
+    if (day.reviewState === 'flagged') job.flagged++
+    else job.waiting++
+    jobs.set(day.jobId, job)
+  }
+  return { days, jobs: [...jobs.values()].sort((a, b) => a.name.localeCompare(b.name)) }
+}
+
+/** The day sheet with its job, on a job the member can see; 404 otherwise. */
+export async function requireReviewableDay(member: Member, dayId: string, db = useDb()) {
+  const day = await visibleJobs(member).join('day_sheets as s', 's.job_id', 'jobs.id').where('s.id', dayId)
+    .first('s.*', 'jobs.name as job_name', 'jobs.site_address', 'jobs.customer_name', 'jobs.organisation_id')
+  if (!day) throw createError({ statusCode: 404, statusMessage: 'No such day' })
+  return db === useDb() ? day : await db('day_sheets').where('id', dayId).forUpdate().first().then(locked => ({ ...day, ...locked }))
+}
+
+export async function reviewDayFor(member: Member, dayId: string): Promise<ReviewDay> {
+  const db = useDb()
+  const s = await requireReviewableDay(member, dayId)
+  const [crew, drops, lifts, photos, notes, reviewer, author] = await Promise.all([
+    db('time_entries as t').join('crew_members as c', 'c.id', 't.crew_member_id').where('t.day_sheet_id', dayId).orderBy('c.name')
+      .select('t.id', 't.crew_member_id as crewMemberId', 'c.name', 't.hours'),
+    db('material_drops').where('day_sheet_id', dayId).orderBy('created_at')
+      .select('id', 'material', 'quantity', 'unit', 'staged_at as stagedAt', 'ticket_number as ticketNumber'),
+    db('lifts as l').join('zones as z', 'z.id', 'l.zone_id').where('l.day_sheet_id', dayId).orderBy(['z.name', 'l.sequence'])
+      .select('l.id', 'l.zone_id as zoneId', 'z.name as zoneName', 'z.kind as zoneKind', 'z.design_base_depth_in as designBaseDepthIn', 'z.base_extension_in as baseExtensionIn',
+        'l.sequence', 'l.material', 'l.loose_in as looseIn', 'l.compacted_in as compactedIn', 'l.passes', 'l.compactor_class as compactorClass', 'l.moisture_note as moistureNote'),
+    db('photos').where('day_sheet_id', dayId).orderBy([{ column: 'taken_at' }, { column: 'created_at' }])
+      .select('id', 'subject_type as subjectType', 'subject_id as subjectId', 'caption', 'taken_at as takenAt', 'width', 'height'),
+    db('review_notes as n').leftJoin('users as a', 'a.id', 'n.author_id').leftJoin('users as r', 'r.id', 'n.resolved_by').where('n.day_sheet_id', dayId).orderBy('n.created_at')
+      .select('n.id', 'n.kind', 'n.subject_type as subjectType', 'n.subject_id as subjectId', 'n.parent_id as parentId', 'n.reason', 'n.body', 'a.name as authorName', 'n.created_at as createdAt', 'n.resolved_at as resolvedAt', 'r.name as resolvedByName'),
+    s.reviewed_by ? db('users').where('id', s.reviewed_by).first('name') : undefined,
+    s.author_id ? db('users').where('id', s.author_id).first('name') : undefined,
+  ])
+  const photoViews = photos.map((p: ReviewDay['photos'][number]) => ({ ...p, takenAt: iso(p.takenAt), ...photoUrls(p.id) }))
+  return {
+    day: {
+      id: s.id, jobId: s.job_id, workDate: s.work_date, status: s.status, reviewState: s.review_state, reviewedAt: iso(s.reviewed_at), reviewedByName: reviewer?.name ?? null,
+      startedAt: s.started_at?.slice(0, 5) ?? null, finishedAt: s.finished_at?.slice(0, 5) ?? null, weatherConditions: s.weather_conditions, rainIn: s.rain_in, temperatureF: s.temperature_f,
+      hoursLost: s.hours_lost, hoursLostReason: s.hours_lost_reason, workDone: s.work_done, siteNotes: s.site_notes, locateTicket: s.locate_ticket, authorName: author?.name ?? null,
+    },
+    job: { id: s.job_id, name: s.job_name, siteAddress: s.site_address, customerName: s.customer_name },
+    crew,
+    drops,
+    lifts,
+    photos: photoViews.filter((p: ReviewDay['photos'][number]) => p.subjectType !== 'review_note'),
+    notes: notes.map((n: ReviewNoteView): ReviewNoteView => ({
+      ...n, createdAt: iso(n.createdAt) ?? '', resolvedAt: iso(n.resolvedAt),
+      photos: photoViews.filter((p: ReviewDay['photos'][number]) => p.subjectType === 'review_note' && p.subjectId === n.id).map((p: ReviewDay['photos'][number]) => ({ id: p.id, caption: p.caption, thumbUrl: p.thumbUrl, displayUrl: p.displayUrl })),
+    })),
+  }
+}
