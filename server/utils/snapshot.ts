@@ -3,7 +3,7 @@
 import type { Member } from './members'
 import { fromRow, kindMaps } from './sync/kinds'
 import type { RecordKind } from '../../shared/schemas/daybook'
-import type { Snapshot, SnapshotJob, SnapshotZone } from '../../shared/types/snapshot'
+import type { Snapshot, SnapshotFlag, SnapshotJob, SnapshotZone } from '../../shared/types/snapshot'
 
 const recentDays = 30
 
@@ -36,6 +36,7 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
     recordsOf('lift', 'day_sheet_id', sheetIds),
     sheetIds.length ? db('photos').whereIn('day_sheet_id', sheetIds).select('id', 'day_sheet_id as daySheetId', 'subject_type as subjectType', 'subject_id as subjectId', 'caption', 'taken_at as takenAt', 'width', 'height') : [],
   ])
+  const { reviewFlags, flagAnswers } = await openFlagsOf(jobIds)
   return {
     fetchedAt: new Date().toISOString(),
     jobs: jobs.map(job => ({ ...job, zones: zones.filter(z => z.jobId === job.id) })),
@@ -47,6 +48,24 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
     materialDrops,
     lifts,
     photos,
+    reviewFlags,
+    flagAnswers,
+  }
+}
+
+/** The open flags on these jobs (whatever the day's age: a flag stays until it is resolved), with their answers. */
+async function openFlagsOf(jobIds: string[]): Promise<Pick<Snapshot, 'reviewFlags' | 'flagAnswers'>> {
+  if (!jobIds.length) return { reviewFlags: [], flagAnswers: [] }
+  const db = useDb()
+  const flags: SnapshotFlag[] = await db('review_notes as f').join('day_sheets as s', 's.id', 'f.day_sheet_id').leftJoin('users as u', 'u.id', 'f.author_id')
+    .whereIn('f.job_id', jobIds).where('f.kind', 'flag').whereNull('f.resolved_at').orderBy('f.created_at')
+    .select('f.id', 'f.job_id as jobId', 'f.day_sheet_id as daySheetId', 's.work_date as workDate', 'f.subject_type as subjectType', 'f.subject_id as subjectId', 'f.reason', 'f.body', 'u.name as authorName', 'f.created_at as createdAt')
+  const answers: { id: string, flagId: string, body: string }[] = flags.length
+    ? await db('review_notes').whereIn('parent_id', flags.map(f => f.id)).where('kind', 'answer').orderBy('created_at').select('id', 'parent_id as flagId', 'body')
+    : []
+  return {
+    reviewFlags: flags.map(f => ({ ...f, createdAt: new Date(f.createdAt).toISOString() })),
+    flagAnswers: answers.map(a => ({ ...a, revision: 1 })),
   }
 }
 

@@ -107,8 +107,28 @@ const change = <K extends RecordKind>(kind: K) => z.strictObject({
   record: recordSchemas[kind],
 })
 
-export const syncChange = z.discriminatedUnion('kind', [change('day_sheet'), change('time_entry'), change('material_drop'), change('lift'), change('zone'), change('material_estimate')])
-export type SyncChange = z.infer<typeof syncChange>
+/** The crew lead's answer to a foreman's flag: a note (photos follow as their own uploads). Sent once, never edited. */
+export const flagAnswerRecord = z.strictObject({
+  id,
+  flagId: id,
+  body: text(2000).min(1, 'Say what was done'),
+})
+export type FlagAnswerRecord = z.infer<typeof flagAnswerRecord>
+const flagAnswerChange = z.strictObject({
+  kind: z.literal('flag_answer'),
+  op: z.literal('upsert', { error: 'An answer cannot be withdrawn' }),
+  baseRevision: z.null(),
+  record: flagAnswerRecord,
+})
+
+export const syncChange = z.discriminatedUnion('kind', [change('day_sheet'), change('time_entry'), change('material_drop'), change('lift'), change('zone'), change('material_estimate'), flagAnswerChange])
+/** Every change a batch may carry. */
+export type PhoneChange = z.infer<typeof syncChange>
+/** A change of a daybook record (a row of its own table, with revisions). */
+export type SyncChange = Exclude<PhoneChange, { kind: 'flag_answer' }>
+export type FlagAnswerChange = Extract<PhoneChange, { kind: 'flag_answer' }>
+/** What the phone's outbox sends through /api/sync. */
+export type SyncKind = RecordKind | 'flag_answer'
 
 export const syncBatch = z.strictObject({
   changes: z.array(syncChange).min(1, 'Nothing to send').max(200, 'At most 200 changes a batch'),
@@ -117,7 +137,7 @@ export type SyncBatch = z.infer<typeof syncBatch>
 
 export const syncResultStatuses = ['applied', 'unchanged', 'conflict', 'rejected'] as const
 export interface SyncResult {
-  kind: RecordKind
+  kind: SyncKind
   id: string
   status: (typeof syncResultStatuses)[number]
   /** The server's revision after the change (applied, unchanged) or as it stands (conflict). */

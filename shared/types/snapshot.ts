@@ -36,6 +36,20 @@ export interface SnapshotPhoto {
   height: number
 }
 
+/** A foreman's open flag on one of the crew lead's days, readable offline. */
+export interface SnapshotFlag {
+  id: string
+  jobId: string
+  daySheetId: string
+  workDate: string
+  subjectType: 'day_sheet' | 'lift' | 'material_drop' | 'photo' | 'time_entry'
+  subjectId: string
+  reason: string | null
+  body: string | null
+  authorName: string | null
+  createdAt: string
+}
+
 export type SnapshotRecord = Record<string, unknown> & { id: string, revision: number }
 
 export interface Snapshot {
@@ -50,4 +64,7 @@ export interface Snapshot {
   materialDrops: SnapshotRecord[]
   lifts: SnapshotRecord[]
   photos: SnapshotPhoto[]
+  /** Open flags on the phone's jobs, and the answers already sent to them (records of kind flag_answer). */
+  reviewFlags: SnapshotFlag[]
+  flagAnswers: SnapshotRecord[]
 }

@@ -1,10 +1,11 @@
 // Applies one batch of phone changes inside the caller's transaction: decide every change against the
 // server's state, then write with one statement per kind where possible.
 import type { Knex } from 'knex'
-import type { SyncChange, SyncResult } from '../../../shared/schemas/daybook'
+import type { FlagAnswerChange, PhoneChange, SyncChange, SyncResult } from '../../../shared/schemas/daybook'
 import type { Member } from '../members'
 import { loadContext, type BatchContext } from './context'
 import { fromRow, kindMaps, sameContent, toColumns } from './kinds'
+import { applyFlagAnswers } from './flag-answers'
 
 type Row = Record<string, unknown> & { id: string }
 type Write = { kind: SyncChange['kind'], id: string, columns: Record<string, unknown>, revision: number, op: 'insert' | 'update' | 'delete' }
@@ -82,7 +83,12 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   return { result: { ...base, status: 'applied', revision: 1 }, write: { kind, id: record.id, columns, revision: 1, op: 'insert' } }
 }
 
-export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[], batchId: string): Promise<SyncResult[]> {
+export async function applyChanges(trx: Knex.Transaction, member: Member, phoneChanges: PhoneChange[], batchId: string): Promise<SyncResult[]> {
+  // Answers to flags are review notes, not daybook records: they have their own small path.
+  const answers = phoneChanges.filter((c): c is FlagAnswerChange => c.kind === 'flag_answer')
+  const changes = phoneChanges.filter((c): c is SyncChange => c.kind !== 'flag_answer')
+  const answered = await applyFlagAnswers(trx, member, answers, new Date())
+  if (!changes.length) return answered
   const ctx = await loadContext(trx, member, changes)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
@@ -119,5 +125,6 @@ export async function applyChanges(trx: Knex.Transaction, member: Member, change
       detail: JSON.stringify({ writes: writes.map(w => ({ kind: w.kind, id: w.id, op: w.op, revision: w.revision })) }), created_at: now,
     })
   }
-  return decisions.map(d => d.result)
+  const results = decisions.map(d => d.result)
+  return answered.length ? phoneChanges.map(c => (c.kind === 'flag_answer' ? answered : results).shift() as SyncResult) : results
 }

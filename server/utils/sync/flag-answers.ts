@@ -1,0 +1,41 @@
+// The crew lead's answers to flags, as they come in sync batches: each one a review note of kind
+// 'answer' under its flag, keyed by the phone's UUID so that a resent batch stores nothing twice.
+// An answer is never refused for the day's state: a note from the crew is never lost.
+import type { Knex } from 'knex'
+import type { FlagAnswerChange, SyncResult } from '../../../shared/schemas/daybook'
+import type { Member } from '../members'
+
+export async function applyFlagAnswers(trx: Knex.Transaction, member: Member, changes: FlagAnswerChange[], now: Date): Promise<SyncResult[]> {
+  if (!changes.length) return []
+  const ids = changes.map(c => c.record.id)
+  const flagIds = [...new Set(changes.map(c => c.record.flagId))]
+  const [existing, flags] = await Promise.all([
+    trx('review_notes').whereIn('id', ids).forUpdate().select('id', 'kind', 'parent_id', 'body'),
+    // Only flags on jobs this member can see: anyone else's flag is as absent as a missing one.
+    visibleJobs(member).join('review_notes as f', 'f.job_id', 'jobs.id').whereIn('f.id', flagIds).where('f.kind', 'flag')
+      .select('f.id', 'f.organisation_id', 'f.job_id', 'f.day_sheet_id', 'f.subject_type', 'f.subject_id'),
+  ])
+  const stored = new Map(existing.map((row: { id: string }) => [row.id, row]))
+  const flagById = new Map(flags.map((row: { id: string }) => [row.id, row]))
+  const rows: Record<string, unknown>[] = []
+  const results = changes.map(({ record }): SyncResult => {
+    const base = { kind: 'flag_answer' as const, id: record.id }
+    const before = stored.get(record.id)
+    if (before) {
+      const same = before.kind === 'answer' && before.parent_id === record.flagId && before.body === record.body
+      return same ? { ...base, status: 'unchanged', revision: 1 } : { ...base, status: 'rejected', message: 'An answer cannot be changed once sent; send another one' }
+    }
+    const flag = flagById.get(record.flagId)
+    if (!flag) return { ...base, status: 'rejected', message: 'This flag is not on the server' }
+    rows.push({
+      id: record.id, organisation_id: flag.organisation_id, job_id: flag.job_id, day_sheet_id: flag.day_sheet_id, subject_type: flag.subject_type, subject_id: flag.subject_id,
+      kind: 'answer', parent_id: flag.id, body: record.body, author_id: member.userId, created_at: now, updated_at: now,
+    })
+    return { ...base, status: 'applied', revision: 1 }
+  })
+  if (rows.length) {
+    await trx('review_notes').insert(rows)
+    for (const row of rows) await audit(trx, member, 'review.answer', 'review_note', row.parent_id as string, { noteId: row.id, daySheetId: row.day_sheet_id })
+  }
+  return results
+}
