@@ -1,8 +1,8 @@
 // The crew lead's daybook as the phone sees it: the server's last copy with every local change on top.
 // Screens read from here and save through here; nothing waits for the network.
 import { skipHydrate } from 'pinia'
-import type { DaySheetRecord, LiftRecord, MaterialDropRecord, MaterialEstimateRecord, RecordKind, TimeEntryRecord, ZoneRecord } from '~~/shared/schemas/daybook'
-import type { Snapshot } from '~~/shared/types/snapshot'
+import type { DaySheetRecord, FlagAnswerRecord, LiftRecord, MaterialDropRecord, MaterialEstimateRecord, RecordKind, SyncKind, TimeEntryRecord, ZoneRecord } from '~~/shared/schemas/daybook'
+import type { Snapshot, SnapshotFlag } from '~~/shared/types/snapshot'
 import { askPersistentStorage, idb } from '~/utils/idb'
 import type { LocalRecord, OutboxEntry } from '~/utils/outbox-types'
 import { mergeSnapshot, type SnapshotMeta } from '~/utils/snapshot-merge'
@@ -10,7 +10,7 @@ import { shrinkPhoto } from '~/utils/photo-shrink'
 
 export type RecordState = 'on_phone' | 'sending' | 'saved' | 'attention'
 export interface PhotoView { id: string, caption: string | null, url: string, state: RecordState }
-type PhotoSubject = { type: 'day_sheet' | 'lift' | 'material_drop', id: string }
+type PhotoSubject = { type: 'day_sheet' | 'lift' | 'material_drop' | 'review_note', id: string }
 
 export const useDaybookStore = defineStore('daybook', () => {
   const ready = ref(false)
@@ -61,6 +61,21 @@ export const useDaybookStore = defineStore('daybook', () => {
   const liftsOf = (sheetId: string) => childrenOf<LiftRecord>('lift', sheetId)
   const reviewStateOf = (sheetId: string) => records.value[`day_sheet:${sheetId}`]?.reviewState
 
+  // The foreman's open flags, as last fetched, and the crew lead's answers (sent or still on the phone).
+  const flags = computed<SnapshotFlag[]>(() => meta.value?.reviewFlags ?? [])
+  const flagsOfJob = (jobId: string) => flags.value.filter(f => f.jobId === jobId)
+  const flagsOfDay = (sheetId: string) => flags.value.filter(f => f.daySheetId === sheetId)
+  const answersOf = (flagId: string) => (Object.values(records.value).filter(r => r.kind === 'flag_answer' && r.record.flagId === flagId).map(r => r.record) as unknown as FlagAnswerRecord[])
+
+  /** An answer to a flag, with its photos, queued like any other change. */
+  async function answerFlag(flagId: string, daySheetId: string, body: string, files: File[]): Promise<void> {
+    const { flagAnswerRecord } = await import('~~/shared/schemas/daybook')
+    const result = flagAnswerRecord.safeParse({ id: crypto.randomUUID(), flagId, body })
+    if (!result.success) throw new Error(result.error.issues[0]?.message ?? 'Some fields need a look')
+    await outbox.saveRecord('flag_answer', result.data, 'upsert', `Answer: ${result.data.body.slice(0, 40)}`)
+    if (files.length) await addPhotos(files, { type: 'review_note', id: result.data.id }, undefined, daySheetId)
+  }
+
   /** A job's zones with the phone's pending edits on top (the Plan screen writes design values here). */
   const zonesOf = (jobId: string) => (all('zone') as unknown as ZoneRecord[]).filter(z => z.jobId === jobId).sort((a, b) => a.name.localeCompare(b.name))
   const estimatesOf = (jobId: string) => (all('material_estimate') as unknown as MaterialEstimateRecord[]).filter(e => e.jobId === jobId)
@@ -71,7 +86,7 @@ export const useDaybookStore = defineStore('daybook', () => {
     return earlier ? entriesOf(earlier.id).map(e => ({ crewMemberId: e.crewMemberId, hours: e.hours })) : []
   }
 
-  function stateOf(kind: RecordKind | 'photo', id: string): RecordState {
+  function stateOf(kind: SyncKind | 'photo', id: string): RecordState {
     const state = outbox.stateOf(`${kind}:${id}`)
     if (!state) return 'saved'
     return state === 'sending' ? 'sending' : state === 'queued' ? 'on_phone' : 'attention'
@@ -136,8 +151,8 @@ export const useDaybookStore = defineStore('daybook', () => {
     return sheet
   }
 
-  async function addPhotos(files: File[], subject: PhotoSubject, caption?: string): Promise<void> {
-    const daySheetId = subject.type === 'day_sheet' ? subject.id : (records.value[`${subject.type}:${subject.id}`]?.record.daySheetId as string | undefined)
+  async function addPhotos(files: File[], subject: PhotoSubject, caption?: string, sheetId?: string): Promise<void> {
+    const daySheetId = sheetId ?? (subject.type === 'day_sheet' ? subject.id : (records.value[`${subject.type}:${subject.id}`]?.record.daySheetId as string | undefined))
     for (const file of files) {
       const shrunk = await shrinkPhoto(file)
       const id = crypto.randomUUID()
@@ -158,6 +173,7 @@ export const useDaybookStore = defineStore('daybook', () => {
     saveEstimate: (r: MaterialEstimateRecord) => save('material_estimate', r),
     zonesOf, estimatesOf,
     setCrewHours, remove, logRainOut, addPhotos,
+    flagsOfJob, flagsOfDay, answersOf, answerFlag,
     newId: () => crypto.randomUUID(),
   }
 })

@@ -4,7 +4,7 @@ import { skipHydrate } from 'pinia'
 import { OutboxEngine } from '~/utils/outbox-engine'
 import type { OutboxEntry, OutboxProgress, OutboxStatus, PhotoMeta } from '~/utils/outbox-types'
 import { exclusively, uploadWithProgress } from '~/utils/photo-shrink'
-import type { RecordKind } from '~~/shared/schemas/daybook'
+import type { SyncKind } from '~~/shared/schemas/daybook'
 
 const timerMs = 30_000
 
@@ -58,7 +58,7 @@ export const useOutboxStore = defineStore('outbox', () => {
     void refresh().then(sendNow)
   }
 
-  async function saveRecord(kind: RecordKind, record: Record<string, unknown> & { id: string }, op: 'upsert' | 'delete', label: string) {
+  async function saveRecord(kind: SyncKind, record: Record<string, unknown> & { id: string }, op: 'upsert' | 'delete', label: string) {
     await use().saveRecord(kind, record, op, label)
     await refresh()
     void sendNow()

@@ -2,7 +2,7 @@
 // sender at a time across tabs, and removes an entry only once the server has acknowledged it.
 // Network errors, 5xx, 408 and 429 are retried with exponential backoff and jitter; 400/422 park the
 // entry for the crew lead; 401 stops and keeps everything until they sign in again.
-import type { RecordKind, SyncAnswer } from '../../shared/schemas/daybook'
+import type { SyncKind, SyncAnswer } from '../../shared/schemas/daybook'
 import { idb } from './idb'
 import type { InflightBatch, LocalRecord, OutboxEntry, OutboxProgress, OutboxStatus, PhotoMeta } from './outbox-types'
 
@@ -29,7 +29,7 @@ export function backoffMs(attempts: number, random: number, retryAfterSeconds?: 
   return Math.min(maxDelayMs, 1000 * 2 ** attempts) * (0.5 + random)
 }
 
-const recordKey = (kind: RecordKind, id: string) => `${kind}:${id}`
+const recordKey = (kind: SyncKind, id: string) => `${kind}:${id}`
 
 export class OutboxEngine {
   status: OutboxStatus = 'idle'
@@ -53,7 +53,7 @@ export class OutboxEngine {
   }
 
   /** Saves a record on the phone and queues the change. */
-  async saveRecord(kind: RecordKind, record: Record<string, unknown> & { id: string }, op: 'upsert' | 'delete', label: string): Promise<void> {
+  async saveRecord(kind: SyncKind, record: Record<string, unknown> & { id: string }, op: 'upsert' | 'delete', label: string): Promise<void> {
     const userId = this.deps.userId()
     if (!userId) throw new Error('Sign in before saving')
     const key = recordKey(kind, record.id)
@@ -201,7 +201,7 @@ export class OutboxEngine {
     const all = await this.entries()
     const waitingRecords = new Set(all.filter(e => e.kind !== 'photo').map(e => e.key))
     const due = all.filter(e => e.userId === userId && e.kind === 'photo' && e.state === 'queued' && e.nextAttemptAt <= this.now()
-      && !waitingRecords.has(`${e.photo?.subjectType}:${e.photo?.subjectId}`))
+      && !waitingRecords.has(`${e.photo?.subjectType === 'review_note' ? 'flag_answer' : e.photo?.subjectType}:${e.photo?.subjectId}`))
     for (const entry of due) {
       const stored = await idb.get<{ bytes: ArrayBuffer, type: string }>('photos', entry.id)
       const meta = entry.photo

@@ -1,6 +1,6 @@
-import type { RecordKind, SyncResult } from '../../shared/schemas/daybook'
+import type { SyncKind, SyncResult } from '../../shared/schemas/daybook'
 
-export type OutboxKind = RecordKind | 'photo'
+export type OutboxKind = SyncKind | 'photo'
 export type EntryState = 'queued' | 'sending' | 'attention' | 'conflict'
 
 export interface PhotoMeta {
@@ -47,7 +47,7 @@ export interface InflightBatch {
 }
 
 export interface LocalRecord {
-  kind: RecordKind
+  kind: SyncKind
   record: Record<string, unknown>
   /** The server revision this copy is based on; null until the server has it. */
   revision: number | null

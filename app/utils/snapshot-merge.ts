@@ -1,12 +1,12 @@
 // Folds the server's copy into the phone's records without touching anything still waiting to be sent.
-import type { RecordKind } from '~~/shared/schemas/daybook'
+import type { SyncKind } from '~~/shared/schemas/daybook'
 import type { Snapshot } from '~~/shared/types/snapshot'
 import { idb } from './idb'
 import type { LocalRecord } from './outbox-types'
 
-type RecordLists = 'zoneRecords' | 'materialEstimates' | 'daySheets' | 'timeEntries' | 'materialDrops' | 'lifts'
-const lists: [RecordKind, RecordLists][] = [
-  ['zone', 'zoneRecords'], ['material_estimate', 'materialEstimates'], ['day_sheet', 'daySheets'], ['time_entry', 'timeEntries'], ['material_drop', 'materialDrops'], ['lift', 'lifts'],
+type RecordLists = 'zoneRecords' | 'materialEstimates' | 'daySheets' | 'timeEntries' | 'materialDrops' | 'lifts' | 'flagAnswers'
+const lists: [SyncKind, RecordLists][] = [
+  ['zone', 'zoneRecords'], ['material_estimate', 'materialEstimates'], ['day_sheet', 'daySheets'], ['time_entry', 'timeEntries'], ['material_drop', 'materialDrops'], ['lift', 'lifts'], ['flag_answer', 'flagAnswers'],
 ]
 
 export async function mergeSnapshot(snapshot: Snapshot, waiting: Set<string>): Promise<void> {
@@ -22,7 +22,7 @@ export async function mergeSnapshot(snapshot: Snapshot, waiting: Set<string>): P
   const gone = local.filter(([key, r]) => r.revision !== null && !fromServer.has(key) && !waiting.has(key)).map(([key]) => key)
   await idb.removeMany('records', gone)
   await idb.putMany('records', [...fromServer].filter(([key]) => !waiting.has(key)))
-  const { zoneRecords: _z, materialEstimates: _e, daySheets: _s, timeEntries: _t, materialDrops: _d, lifts: _l, ...rest } = snapshot
+  const { zoneRecords: _z, materialEstimates: _e, daySheets: _s, timeEntries: _t, materialDrops: _d, lifts: _l, flagAnswers: _a, ...rest } = snapshot
   await idb.put('meta', 'snapshot', rest)
 }
 
