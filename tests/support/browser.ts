@@ -159,3 +159,14 @@ export async function startReleaseProxy(target: string): Promise<ReleaseProxy> {
     }),
   }
 }
+
+/** Taps the outbox's "Send now" until nothing waits on the phone (retries wait out their backoff first). */
+export async function settleOutbox(page: Page, timeoutMs = 30_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs
+  for (;;) {
+    await page.getByTestId('send-now').click({ timeout: 1000 }).catch(() => undefined)
+    if (await page.getByTestId('outbox-count').innerText() === '0') return
+    if (Date.now() > deadline) throw new Error(`the outbox still holds ${await page.getByTestId('outbox-count').innerText()} after ${timeoutMs / 1000} s`)
+    await page.waitForTimeout(500)
+  }
+}

@@ -1,0 +1,181 @@
+// The foreman's night review against the crew lead's phone, in real Chromium against the production
+// build: the foreman flags a lift; the flag reaches the phone; offline, the crew lead answers with a
+// new photo; back online the answer reaches the foreman, who resolves the flag and approves the day.
+import { randomUUID } from 'node:crypto'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { fetch, url } from '@nuxt/test-utils/e2e'
+import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { useBuiltServer } from '../support/server'
+import { createCompany, fixturePassword, type FixtureCompany } from '../support/fixtures'
+import { addZoneAndCrew, dayWithWork, sync } from '../support/daybook'
+import { testDb } from '../support/db'
+import { signIn } from '../support/http'
+import { phoneJpeg } from '../support/images'
+import { checkAccessibility, launchBrowser, phoneContext, settleOutbox, signInInBrowser, waitForApp, waitForServiceWorker } from '../support/browser'
+
+await useBuiltServer()
+
+let browser: Browser
+let foremanContext: BrowserContext
+let leadContext: BrowserContext
+let foreman: Page
+let lead: Page
+let company: FixtureCompany
+let sheetId: string
+let liftId: string
+let flagId = ''
+
+const yesterday = () => new Date(Date.now() - 86_400_000).toISOString().slice(0, 10)
+const outboxCount = () => lead.getByTestId('outbox-count').innerText()
+
+
+async function upload(cookie: string, subjectType: string, subjectId: string, caption: string) {
+  const response = await fetch(`/api/photos/${randomUUID()}?subjectType=${subjectType}&subjectId=${subjectId}&caption=${encodeURIComponent(caption)}`, {
+    method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 640, height: 480 })), headers: { 'content-type': 'image/jpeg', cookie },
+  })
+  expect(response.status).toBe(201)
+}
+
+beforeAll(async () => {
+  company = await createCompany('Night Review Paving')
+  const { zoneId, crew } = await addZoneAndCrew(company.organisationId, company.jobId)
+  // The crew lead's day, logged yesterday: a lift with its photo, and a photo of the day.
+  const cookie = await signIn(company.lead.email)
+  const day = dayWithWork(company.jobId, zoneId, crew, yesterday())
+  sheetId = day.sheetId
+  liftId = day.changes.find(c => c.kind === 'lift')!.record.id as string
+  expect((await sync(cookie, day.changes)).response.status).toBe(200)
+  await upload(cookie, 'lift', liftId, 'First lift, plated')
+  await upload(cookie, 'day_sheet', sheetId, 'Front walk at noon')
+
+  browser = await launchBrowser()
+  foremanContext = await phoneContext(browser, { baseURL: url('/') })
+  leadContext = await phoneContext(browser, { baseURL: url('/') })
+  foreman = await foremanContext.newPage()
+  lead = await leadContext.newPage()
+})
+
+afterAll(async () => {
+  await foremanContext?.close()
+  await leadContext?.close()
+  await browser?.close()
+})
+
+describe('a flag from the foreman to the crew lead\'s phone and back', () => {
+  it('lists the day waiting for review, with the count for its job', async () => {
+    await signInInBrowser(foreman, company.foreman.email, fixturePassword)
+    await foreman.goto('/review')
+    await waitForApp(foreman)
+    await foreman.getByTestId(`review-job-${company.jobId}`).getByText('Fixture walk · 1 to review').waitFor()
+    await foreman.getByTestId(`review-day-${sheetId}`).waitFor()
+    expect(await checkAccessibility(foreman), 'the review list').toEqual([])
+  })
+
+  it('opens the day in full, with the photos at full size by tap, swipe and the arrow keys', async () => {
+    await foreman.getByTestId(`review-day-${sheetId}`).click()
+    await foreman.getByRole('heading', { name: 'Fixture walk' }).waitFor()
+    await foreman.getByText('Front walk · lift 1 · 3/4 in crushed stone').waitFor()
+    await foreman.getByText('12 ton · 3/4 in crushed stone').waitFor()
+    expect(await foreman.getByRole('heading', { name: 'All photos (2)' }).count()).toBe(1)
+    expect(await checkAccessibility(foreman), 'the day under review').toEqual([])
+
+    await foreman.locator('[data-testid^="review-photo-"]').first().click()
+    const viewer = foreman.getByTestId('photo-viewer')
+    await viewer.waitFor()
+    const shown = () => foreman.getByTestId('photo-viewer-image').getAttribute('src')
+    const first = await shown()
+    expect(first).toMatch(/^\/api\/photos\/[\w-]+\/display$/)
+    expect(await checkAccessibility(foreman), 'the full photo view').toEqual([])
+    await foreman.keyboard.press('ArrowRight')
+    await expect.poll(shown).not.toBe(first)
+    await foreman.keyboard.press('ArrowLeft')
+    await expect.poll(shown).toBe(first)
+    // A swipe to the left shows the next photo.
+    await viewer.evaluate((element) => {
+      const touch = (x: number) => new Touch({ identifier: 1, target: element, clientX: x, clientY: 400 })
+      element.dispatchEvent(new TouchEvent('touchstart', { touches: [touch(300)], changedTouches: [touch(300)], bubbles: true }))
+      element.dispatchEvent(new TouchEvent('touchend', { touches: [], changedTouches: [touch(100)], bubbles: true }))
+    })
+    await expect.poll(shown).not.toBe(first)
+    await foreman.keyboard.press('Escape')
+    await viewer.waitFor({ state: 'hidden' })
+  })
+
+  it('flags the lift with a reason and a note, and will not approve the day while it is open', async () => {
+    await foreman.getByTestId(`flag-lift-${liftId}`).click()
+    const form = foreman.getByTestId(`flag-form-${liftId}`)
+    await form.getByLabel('Compact it again').check()
+    await form.getByLabel('Note for the crew lead').fill('Edge by the steps is soft: four more passes, then a photo.')
+    expect(await checkAccessibility(foreman), 'the flag form').toEqual([])
+    await form.getByTestId('flag-submit').click()
+    const open = foreman.locator('[data-testid^="review-flag-"]')
+    await open.getByText('Open flag: Compact it again').waitFor()
+    flagId = (await open.getAttribute('data-testid'))?.replace('review-flag-', '') ?? ''
+    expect(await foreman.getByTestId('review-state').innerText()).toBe('Flagged')
+    expect(await foreman.getByTestId('approve-day').isDisabled()).toBe(true)
+    expect(await testDb()('review_notes').where({ id: flagId })).toEqual([expect.objectContaining({ kind: 'flag', subject_type: 'lift', subject_id: liftId, reason: 'recompact' })])
+  })
+
+  it('shows the flag on the crew lead\'s phone after sync: a count on Today, the note beside the lift', async () => {
+    await signInInBrowser(lead, company.lead.email, fixturePassword)
+    await lead.goto('/today')
+    await waitForApp(lead)
+    await waitForServiceWorker(lead)
+    const count = lead.getByTestId(`flag-count-${company.jobId}`)
+    await count.getByText('1 flag from the foreman to answer').waitFor()
+    expect(await checkAccessibility(lead), 'Today with a flag').toEqual([])
+    await count.getByRole('link').click()
+    const card = lead.getByTestId(`flag-${flagId}`)
+    await card.getByText('This lift · Compact it again').waitFor()
+    await card.getByText('Edge by the steps is soft: four more passes, then a photo.').waitFor()
+    expect(await checkAccessibility(lead), 'the day sheet with a flag').toEqual([])
+  })
+
+  it('takes the crew lead\'s answer with a new photo with no signal, and keeps it on the phone', async () => {
+    await leadContext.setOffline(true)
+    const card = lead.getByTestId(`flag-${flagId}`)
+    await card.getByLabel('Your answer: what did you do about it?').fill('Four more passes with the plate; edge is firm now.')
+    await lead.getByTestId(`flag-photo-${flagId}`).setInputFiles([{ name: 'IMG_0101.jpg', mimeType: 'image/jpeg', buffer: await phoneJpeg({ width: 1200, height: 900, orientation: 6 }) }])
+    await card.getByText('1 photo goes with the answer').waitFor()
+    await lead.getByTestId(`flag-send-${flagId}`).click()
+    await card.getByText('Four more passes with the plate; edge is firm now.').waitFor()
+    await expect.poll(outboxCount).toBe('2')
+    expect(await testDb()('review_notes').where({ parent_id: flagId })).toEqual([])
+  })
+
+  it('sends the answer and its photo once the signal is back, once only', async () => {
+    await leadContext.setOffline(false)
+    await settleOutbox(lead)
+    const answers = await testDb()('review_notes').where({ parent_id: flagId, kind: 'answer' })
+    expect(answers).toEqual([expect.objectContaining({ body: 'Four more passes with the plate; edge is firm now.', author_id: company.lead.userId, day_sheet_id: sheetId })])
+    const photos = await testDb()('photos').where({ subject_type: 'review_note', subject_id: answers[0].id })
+    expect(photos).toHaveLength(1)
+    expect(photos[0]).toMatchObject({ day_sheet_id: sheetId, width: 900, height: 1200 })
+  })
+
+  it('shows the foreman the answer with its photo; resolving and approving lock the day', async () => {
+    await foreman.reload()
+    await waitForApp(foreman)
+    const answer = foreman.locator('[data-testid^="review-answer-"]')
+    await answer.getByText('Four more passes with the plate; edge is firm now.').waitFor()
+    await answer.getByRole('button', { name: 'Open the answer\'s photo' }).click()
+    await foreman.getByTestId('photo-viewer').waitFor()
+    await foreman.keyboard.press('Escape')
+    await foreman.getByTestId(`resolve-${flagId}`).click()
+    await foreman.locator(`[data-testid="review-flag-${flagId}"]`).getByText('Resolved flag: Compact it again').waitFor()
+    await expect.poll(() => foreman.getByTestId('review-state').innerText()).toBe('Waiting for review')
+    await foreman.getByTestId('approve-day').click()
+    await expect.poll(() => foreman.getByTestId('review-state').innerText()).toMatch(/^Approved/)
+    expect(await checkAccessibility(foreman), 'the approved day').toEqual([])
+    const audit = await testDb()('audit_log').where({ organisation_id: company.organisationId }).whereIn('action', ['review.flag', 'review.answer', 'review.resolve', 'review.approve']).orderBy('id')
+    expect(audit.map(row => row.action)).toEqual(['review.flag', 'review.answer', 'review.resolve', 'review.approve'])
+    expect((await testDb()('day_sheets').where({ id: sheetId }).first()).review_state).toBe('approved')
+  })
+
+  it('clears the flag from the crew lead\'s phone and shows the day as approved there', async () => {
+    await lead.reload()
+    await waitForApp(lead)
+    await lead.getByText('The foreman approved this day. To change it, ask them to reopen it.').waitFor()
+    expect(await lead.getByTestId(`flag-${flagId}`).count()).toBe(0)
+  })
+})
