@@ -8,33 +8,37 @@ const openStates = ['waiting', 'reopened', 'flagged']
 const iso = (value: unknown) => value instanceof Date ? value.toISOString() : value === null || value === undefined ? null : String(value)
 const photoUrls = (id: string) => ({ thumbUrl: `/api/photos/${id}/thumb`, displayUrl: `/api/photos/${id}/display` })
 
+// MariaDB answers COUNT(*) in a subquery as a number or, past 2^53, a string.
+type ListRow = Omit<ReviewListDay, Counts> & Record<Counts, number | string>
+type Counts = 'crew' | 'lifts' | 'photos' | 'openFlags' | 'answeredFlags'
+
+/** At most this many days in the list; the counts per job cover every day still open. */
+const listLimit = 300
+
 export async function reviewListFor(member: Member): Promise<ReviewList> {
   const db = useDb()
   const count = (sql: string) => db.raw(sql)
-  const rows: (Omit<ReviewListDay, 'crew' | 'lifts' | 'photos' | 'openFlags' | 'answeredFlags'> & Record<'crew' | 'lifts' | 'photos' | 'openFlags' | 'answeredFlags', number | string>)[] = await visibleJobs(member)
-    .join('day_sheets as s', 's.job_id', 'jobs.id')
-    .leftJoin('users as u', 'u.id', 's.author_id')
-    .whereIn('s.review_state', openStates)
-    .orderBy([{ column: 's.work_date', order: 'desc' }, { column: 'jobs.name' }])
-    .limit(500)
-    .select(
-      's.id', 'jobs.id as jobId', 'jobs.name as jobName', 's.work_date as workDate', 's.status', 's.review_state as reviewState', 'u.name as authorName',
-      count('(SELECT COUNT(*) FROM time_entries t WHERE t.day_sheet_id = s.id) AS crew'),
-      count('(SELECT COUNT(*) FROM lifts l WHERE l.day_sheet_id = s.id) AS lifts'),
-      count('(SELECT COUNT(*) FROM photos p WHERE p.day_sheet_id = s.id) AS photos'),
-      count(`(SELECT COUNT(*) FROM review_notes f WHERE f.day_sheet_id = s.id AND f.kind = 'flag' AND f.resolved_at IS NULL) AS openFlags`),
-      count(`(SELECT COUNT(*) FROM review_notes f WHERE f.day_sheet_id = s.id AND f.kind = 'flag' AND f.resolved_at IS NULL
-        AND EXISTS (SELECT 1 FROM review_notes a WHERE a.parent_id = f.id AND a.kind = 'answer')) AS answeredFlags`),
-    )
-  const days = rows.map(row => ({ ...row, crew: Number(row.crew), lifts: Number(row.lifts), photos: Number(row.photos), openFlags: Number(row.openFlags), answeredFlags: Number(row.answeredFlags) }))
-  const jobs = new Map<string, ReviewList['jobs'][number]>()
-  for (const day of days) {
-    const job = jobs.get(day.jobId) ?? { id: day.jobId, name: day.jobName, waiting: 0, flagged: 0 }
-    if (day.reviewState === 'flagged') job.flagged++
-    else job.waiting++
-    jobs.set(day.jobId, job)
+  const open = () => visibleJobs(member).join('day_sheets as s', 's.job_id', 'jobs.id').whereIn('s.review_state', openStates)
+  const [rows, perJob]: [ListRow[], Record<string, unknown>[]] = await Promise.all([
+    open().leftJoin('users as u', 'u.id', 's.author_id')
+      .orderBy([{ column: 's.work_date', order: 'desc' }, { column: 'jobs.name' }])
+      .limit(listLimit)
+      .select(
+        's.id', 'jobs.id as jobId', 'jobs.name as jobName', 's.work_date as workDate', 's.status', 's.review_state as reviewState', 'u.name as authorName',
+        count('(SELECT COUNT(*) FROM time_entries t WHERE t.day_sheet_id = s.id) AS crew'),
+        count('(SELECT COUNT(*) FROM lifts l WHERE l.day_sheet_id = s.id) AS lifts'),
+        count('(SELECT COUNT(*) FROM photos p WHERE p.day_sheet_id = s.id) AS photos'),
+        count(`(SELECT COUNT(*) FROM review_notes f WHERE f.day_sheet_id = s.id AND f.kind = 'flag' AND f.resolved_at IS NULL) AS openFlags`),
+        count(`(SELECT COUNT(*) FROM review_notes f WHERE f.day_sheet_id = s.id AND f.kind = 'flag' AND f.resolved_at IS NULL
+          AND EXISTS (SELECT 1 FROM review_notes a WHERE a.parent_id = f.id AND a.kind = 'answer')) AS answeredFlags`),
+      ),
+    open().groupBy('jobs.id', 'jobs.name').orderBy('jobs.name')
+      .select('jobs.id', 'jobs.name', count(`SUM(s.review_state <> 'flagged') AS waiting`), count(`SUM(s.review_state = 'flagged') AS flagged`)),
+  ])
+  return {
+    days: rows.map(row => ({ ...row, crew: Number(row.crew), lifts: Number(row.lifts), photos: Number(row.photos), openFlags: Number(row.openFlags), answeredFlags: Number(row.answeredFlags) })),
+    jobs: perJob.map(job => ({ id: String(job.id), name: String(job.name), waiting: Number(job.waiting), flagged: Number(job.flagged) })),
   }
-  return { days, jobs: [...jobs.values()].sort((a, b) => a.name.localeCompare(b.name)) }
 }
 
 /** The day sheet with its job, on a job the member can see; 404 otherwise. */

@@ -5,18 +5,21 @@ import type { Knex } from 'knex'
 import type { FlagAnswerChange, SyncResult } from '../../../shared/schemas/daybook'
 import type { Member } from '../members'
 
+interface AnswerRow { id: string, kind: string, parent_id: string | null, body: string | null }
+interface FlagRow { id: string, organisation_id: string, job_id: string, day_sheet_id: string, subject_type: string, subject_id: string }
+
 export async function applyFlagAnswers(trx: Knex.Transaction, member: Member, changes: FlagAnswerChange[], now: Date): Promise<SyncResult[]> {
   if (!changes.length) return []
   const ids = changes.map(c => c.record.id)
   const flagIds = [...new Set(changes.map(c => c.record.flagId))]
-  const [existing, flags] = await Promise.all([
+  const [existing, flags]: [AnswerRow[], FlagRow[]] = await Promise.all([
     trx('review_notes').whereIn('id', ids).forUpdate().select('id', 'kind', 'parent_id', 'body'),
     // Only flags on jobs this member can see: anyone else's flag is as absent as a missing one.
     visibleJobs(member).join('review_notes as f', 'f.job_id', 'jobs.id').whereIn('f.id', flagIds).where('f.kind', 'flag')
       .select('f.id', 'f.organisation_id', 'f.job_id', 'f.day_sheet_id', 'f.subject_type', 'f.subject_id'),
   ])
-  const stored = new Map(existing.map((row: { id: string }) => [row.id, row]))
-  const flagById = new Map(flags.map((row: { id: string }) => [row.id, row]))
+  const stored = new Map(existing.map(row => [row.id, row]))
+  const flagById = new Map(flags.map(row => [row.id, row]))
   const rows: Record<string, unknown>[] = []
   const results = changes.map(({ record }): SyncResult => {
     const base = { kind: 'flag_answer' as const, id: record.id }
