@@ -178,4 +178,25 @@ describe('a flag from the foreman to the crew lead\'s phone and back', () => {
     await lead.getByText('The foreman approved this day. To change it, ask them to reopen it.').waitFor()
     expect(await lead.getByTestId(`flag-${flagId}`).count()).toBe(0)
   })
+
+  it('reopens the approved day for the crew lead to change it again', async () => {
+    await foreman.getByLabel('Note (optional)').fill('Add the second lift here too')
+    await foreman.getByTestId('reopen-day').click()
+    await expect.poll(() => foreman.getByTestId('review-state').innerText()).toBe('Reopened')
+    expect(await testDb()('review_notes').where({ day_sheet_id: sheetId, kind: 'reopen' })).toEqual([expect.objectContaining({ body: 'Add the second lift here too', author_id: company.foreman.userId })])
+    await lead.reload()
+    await waitForApp(lead)
+    // The phone's own copy of the day says reopened, and the day sheet no longer says it is locked.
+    const phoneState = () => lead.evaluate(async key => await new Promise<unknown>((resolve, reject) => {
+      const open = indexedDB.open('tamp-records')
+      open.onerror = () => reject(open.error)
+      open.onsuccess = () => {
+        const read = open.result.transaction('records').objectStore('records').get(key)
+        read.onsuccess = () => resolve((read.result as { reviewState?: string } | undefined)?.reviewState)
+      }
+    }), `day_sheet:${sheetId}`)
+    await expect.poll(phoneState, { timeout: 15_000 }).toBe('reopened')
+    await lead.getByText('Front walk · 3/4 in crushed stone').waitFor()
+    expect(await lead.getByText('The foreman approved this day. To change it, ask them to reopen it.').count()).toBe(0)
+  })
 })
