@@ -2,6 +2,7 @@
 // with = + - @ tab or CR would be run as a formula by Excel, LibreOffice or Sheets (OWASP, "CSV
 // Injection"): such text gets a leading apostrophe. Numbers stay numbers, so -2.5 is not touched.
 import { stringify } from 'csv-stringify/sync'
+import { setResponseHeaders, type H3Event } from 'h3'
 
 export type CsvCell = string | number | boolean | null | undefined
 
@@ -19,7 +20,7 @@ export function toCsv(header: string[], rows: CsvCell[][]): string {
 }
 
 /** Answers with a CSV download named `filename`. */
-export function sendCsv(event: Parameters<typeof setResponseHeaders>[0], filename: string, csv: string): string {
+export function sendCsv(event: H3Event, filename: string, csv: string): string {
   setResponseHeaders(event, {
     'content-type': 'text/csv; charset=utf-8',
     'content-disposition': `attachment; filename="${filename.replace(/[^\w.-]/g, '_')}"`,

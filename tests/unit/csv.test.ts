@@ -1,10 +1,7 @@
 // CSV exports: RFC 4180 quoting (by csv-stringify) and the OWASP "CSV Injection" advice that a cell
 // beginning with = + - @ tab or carriage return is prefixed with an apostrophe.
-import { describe, expect, it, vi } from 'vitest'
-
-// sendCsv uses h3's auto-imported helpers; only toCsv is tested here.
-vi.stubGlobal('setResponseHeaders', () => undefined)
-const { toCsv, neutraliseCell } = await import('../../server/utils/csv')
+import { describe, expect, it } from 'vitest'
+import { neutraliseCell, toCsv } from '../../server/utils/csv'
 
 describe('toCsv', () => {
   it('writes the header then the rows, with CRLF line ends', () => {
