@@ -128,4 +128,26 @@ describe('a job from the office to the crew lead\'s phone and back', () => {
     expect(await row().getByTestId('crew-days').innerText()).toBe('0 / 3')
     expect(await row().getByTestId('projected-finish').getAttribute('data-date')).toBe(nthWorkingDay(startDate, 4))
   })
+
+  // A4 is 210 mm wide and US letter 216 mm; with the sheet's 12 mm margins A4 leaves the narrower 186 mm (703 CSS px at 96 px per inch).
+  it('prints the job report and the rain-out\'s day report within the width of A4 and letter paper', async () => {
+    const sheet = await testDb()('day_sheets').where({ job_id: jobId, work_date: startDate }).first('id')
+    const printable = await laptop.newPage()
+    await printable.setViewportSize({ width: 703, height: 1000 })
+    await printable.emulateMedia({ media: 'print' })
+    for (const [path, heading] of [[`/print/job/${jobId}`, jobName], [`/print/day/${sheet.id}`, `${jobName}: ${startDate}`]] as const) {
+      await printable.goto(path)
+      await waitForApp(printable)
+      await printable.getByRole('heading', { name: heading, level: 1 }).waitFor()
+      expect(await printable.getByRole('button', { name: 'Print' }).isVisible(), `the Print button on paper (${path})`).toBe(false)
+      const widths = await printable.evaluate(() => ({ content: document.documentElement.scrollWidth, page: document.documentElement.clientWidth }))
+      expect(widths.content, `${path} is no wider than the printable width`).toBeLessThanOrEqual(widths.page)
+      for (const format of ['A4', 'Letter'] as const) {
+        const pdf = (await printable.pdf({ format })).toString('latin1')
+        expect(pdf.startsWith('%PDF'), `${path} on ${format}`).toBe(true)
+      }
+    }
+    await printable.getByText('Rain-out').first().waitFor()
+    await printable.close()
+  })
 })

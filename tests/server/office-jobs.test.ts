@@ -3,11 +3,13 @@
 // with GNU `date -d 2030-03-04 +%A`); the jobs start then, so the dates do not depend on today.
 import { randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
+import { fetch } from '@nuxt/test-utils/e2e'
 import { useBuiltServer } from '../support/server'
 import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { call, signIn, type Cookie } from '../support/http'
 import { addZoneAndCrew, sync } from '../support/daybook'
 import { testDb } from '../support/db'
+import { phoneJpeg } from '../support/images'
 
 await useBuiltServer()
 
@@ -270,5 +272,51 @@ describe('company holidays', () => {
     expect(response.status).toBe(422)
     expect((await (await call('GET', '/api/organisation/holidays', { cookie: office })).json()).holidays).toEqual(['2030-12-25'])
     await call('PUT', '/api/organisation/holidays', { cookie: office, body: { holidays: [] } })
+  })
+})
+
+describe('the office\'s job page and printable reports', () => {
+  const sheetOn = async (workDate: string) => (await testDb()('day_sheets').where({ job_id: patioId, work_date: workDate }).first('id')).id as string
+
+  it('lists the job\'s days newest first with their crew, hours and weather days', async () => {
+    const { days } = await (await call('GET', `/api/jobs/${patioId}/days`, { cookie: office })).json()
+    expect(days.map((d: Record<string, unknown>) => [d.workDate, d.status, d.crewDays, d.weatherDays, d.crew, d.personHours])).toEqual([
+      ['2030-03-06', 'rain_out', 0, 1, 0, 0],
+      ['2030-03-05', 'half_day', 0.5, 0, 2, 8],
+      ['2030-03-04', 'full_day', 1, 0, 3, 24],
+    ])
+  })
+
+  it('shows the job\'s photos in the gallery, with the day they belong to', async () => {
+    const sheetId = await sheetOn('2030-03-04')
+    const body = new Uint8Array(await phoneJpeg({ width: 800, height: 600 }))
+    const upload = await fetch(`/api/photos/${randomUUID()}?subjectType=day_sheet&subjectId=${sheetId}&caption=Patio%20base`, { method: 'PUT', body, headers: { 'content-type': 'image/jpeg', cookie: lead } })
+    expect(upload.status).toBe(201)
+    const { photos } = await (await call('GET', `/api/jobs/${patioId}/photos`, { cookie: foreman })).json()
+    expect(photos).toEqual([expect.objectContaining({ workDate: '2030-03-04', caption: 'Patio base', subjectType: 'day_sheet', thumbUrl: expect.stringMatching(/^\/api\/photos\/.+\/thumb$/) })])
+    expect((await call('GET', photos[0].thumbUrl, { cookie: office })).status).toBe(200)
+  })
+
+  it('gives the printable day report the crew, hours and photos of the day, without storage keys', async () => {
+    const { report } = await (await call('GET', `/api/reports/day/${await sheetOn('2030-03-04')}`, { cookie: office })).json()
+    expect(report.day).toMatchObject({ workDate: '2030-03-04', status: 'full_day', weatherConditions: 'Clear' })
+    expect(report.crew).toEqual([{ name: 'Crew 1', hours: 8 }, { name: 'Crew 2', hours: 8 }, { name: 'Crew 3', hours: 8 }])
+    expect(report.photos).toHaveLength(1)
+    expect(report.photos[0]).not.toHaveProperty('thumbKey')
+  })
+
+  it('gives the printable job report the bid figures, zones, estimate and days', async () => {
+    const { report } = await (await call('GET', `/api/reports/job/${patioId}`, { cookie: office })).json()
+    expect(report.job).toMatchObject({ id: patioId, crewDaysUsed: 1.5, weatherDays: 1 })
+    expect(report.zones).toEqual([expect.objectContaining({ name: 'Back patio', kind: 'patio' })])
+    expect(report.estimate).toEqual([{ material: 'Crushed stone base', quantity: 14, unit: 'ton' }])
+    expect(report.days).toHaveLength(3)
+  })
+
+  it('hides the job\'s days, photos and reports from a foreman who is not on it (404)', async () => {
+    const other = await signIn(company.otherForeman.email)
+    for (const path of [`/api/jobs/${patioId}/days`, `/api/jobs/${patioId}/photos`, `/api/reports/job/${patioId}`, `/api/reports/day/${await sheetOn('2030-03-04')}`, `/api/exports/job-days/${patioId}`]) {
+      expect((await call('GET', path, { cookie: other })).status, path).toBe(404)
+    }
   })
 })
