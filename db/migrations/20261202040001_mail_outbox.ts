@@ -21,8 +21,15 @@ export async function up(knex: Knex): Promise<void> {
     t.unique(['kind', 'audience', 'day_sheet_id'])
     t.index(['sent_at', 'next_attempt_at'])
   })
+  // The outbox looks for fresh rain-outs on every tick.
+  await knex.schema.alterTable('day_sheets', (t) => {
+    t.index(['status', 'updated_at'], 'day_sheets_status_updated_at_index')
+  })
 }
 
 export async function down(knex: Knex): Promise<void> {
+  await knex.schema.alterTable('day_sheets', (t) => {
+    t.dropIndex(['status', 'updated_at'], 'day_sheets_status_updated_at_index')
+  })
   await knex.schema.dropTableIfExists('mail_outbox')
 }

@@ -106,7 +106,7 @@ async function composeMessage(row: OutboxRow): Promise<OutgoingMail | undefined>
     paragraphs: row.audience === 'homeowner' ? [`Here is what the crew did at ${report.job.siteAddress} today.`] : [],
     facts: dayReportFacts(report, row.audience),
     images: thumbs.map(t => ({ cid: t.cid, alt: t.alt })),
-    footnote: row.audience === 'homeowner' ? 'You get these updates because you asked for them; reply to this e-mail to stop them.' : undefined,
+    footnote: row.audience === 'homeowner' ? 'You get these updates because you asked your contractor for them; tell them if you would rather not.' : undefined,
   })
   return {
     to, subject: `Day report: ${report.job.name}, ${report.day.workDate}`, text, html,
@@ -119,7 +119,7 @@ function rainOutBody(report: DayReport) {
   return renderMail({
     heading: `Rain-out on ${report.job.name}`,
     paragraphs: [
-      `The crew logged a rain-out at ${report.job.siteAddress} on ${day.workDate}. It counts as a weather day, not a crew-day, and the projected finish moves by a working day.`,
+      `The crew logged a rain-out at ${report.job.siteAddress} on ${day.workDate}. It counts as a weather day, not a crew-day of the bid.`,
       ...(day.hoursLostReason ? [`Reason given: ${day.hoursLostReason}`] : []),
     ],
     facts: [['Weather', [day.weatherConditions, day.rainIn !== null ? `${day.rainIn} in of rain` : null].filter(Boolean).join(', ') || 'Not recorded'], ['Crew on site', String(report.crew.length)]],
