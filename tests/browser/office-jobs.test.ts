@@ -129,6 +129,31 @@ describe('a job from the office to the crew lead\'s phone and back', () => {
     expect(await row().getByTestId('projected-finish').getAttribute('data-date')).toBe(nthWorkingDay(startDate, 4))
   })
 
+  it('the office\'s company holiday on the projected finish day moves it to the next working day', async () => {
+    const holiday = nthWorkingDay(startDate, 4)
+    await office.getByLabel('Add a day').fill(holiday)
+    await office.getByRole('button', { name: 'Add', exact: true }).click()
+    await office.getByRole('button', { name: 'Save the holidays' }).click()
+    await office.getByText('Holidays saved').waitFor()
+    await expect.poll(() => row().getByTestId('projected-finish').getAttribute('data-date')).toBe(nthWorkingDay(startDate, 5))
+    const { holidays } = await testDb()('organisations').where({ id: company.organisationId }).first('holidays')
+    expect(typeof holidays === 'string' ? JSON.parse(holidays) : holidays).toEqual([holiday])
+  })
+
+  it('the office raises the bid to 4 crew-days on the edit page and the finish moves one more working day', async () => {
+    await row().getByRole('link', { name: 'Edit' }).click()
+    await office.waitForURL(address => address.pathname === `/jobs/${jobId}/edit`)
+    await waitForApp(office)
+    await expect.poll(() => office.getByLabel('Crew-days bid').inputValue()).toBe('3')
+    await office.getByLabel('Crew-days bid').fill('4')
+    await office.getByRole('button', { name: 'Save the job' }).click()
+    await office.waitForURL(address => address.pathname === '/jobs')
+    await row().waitFor()
+    await expect.poll(() => row().getByTestId('crew-days').innerText()).toBe('0 / 4')
+    expect(await row().getByTestId('projected-finish').getAttribute('data-date')).toBe(nthWorkingDay(startDate, 6))
+    expect((await testDb()('jobs').where({ id: jobId }).first('revision')).revision).toBe(2)
+  })
+
   // A4 is 210 mm wide and US letter 216 mm; with the sheet's 12 mm margins A4 leaves the narrower 186 mm (703 CSS px at 96 px per inch).
   it('prints the job report and the rain-out\'s day report within the width of A4 and letter paper', async () => {
     const sheet = await testDb()('day_sheets').where({ job_id: jobId, work_date: startDate }).first('id')
