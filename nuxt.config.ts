@@ -55,6 +55,14 @@ export default defineNuxtConfig({
       smtpPassword: '',
       from: 'Tamp <daybook@tamp.local>',
     },
+    // The mail outbox's timer (server/plugins/mail-outbox.ts): how often it queues and sends (0 = off),
+    // the hour in each company's time zone after which the day's unapproved sheets are reported too,
+    // and how many tries a message gets.
+    reports: {
+      intervalSeconds: 60,
+      eveningHour: 19,
+      maxAttempts: 10,
+    },
     // Where links in e-mails point (https://tamp.example.com); the request's own address when empty.
     appUrl: '',
     // Behind a reverse proxy, believe its X-Forwarded-For for the per-address sign-in throttle.

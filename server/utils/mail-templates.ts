@@ -10,6 +10,10 @@ export interface MailBody {
   paragraphs: string[]
   action?: { label: string, url: string }
   footnote?: string
+  /** Label and value lines (a day report's crew, weather, drops), shown as a table in HTML. */
+  facts?: [label: string, value: string][]
+  /** Images attached inline, shown by their Content-ID. */
+  images?: { cid: string, alt: string }[]
 }
 
 export function renderMail(body: MailBody): { text: string, html: string } {
@@ -17,6 +21,7 @@ export function renderMail(body: MailBody): { text: string, html: string } {
     body.heading,
     '',
     ...body.paragraphs.flatMap(p => [p, '']),
+    ...(body.facts?.length ? [...body.facts.map(([label, value]) => `${label}: ${value}`), ''] : []),
     ...(body.action ? [`${body.action.label}: ${body.action.url}`, ''] : []),
     ...(body.footnote ? [body.footnote, ''] : []),
     '-- Tamp, the crew daybook',
@@ -31,6 +36,8 @@ export function renderMail(body: MailBody): { text: string, html: string } {
   <p style="margin:0 0 8px;font-weight:bold;letter-spacing:2px;color:#2e5a43">TAMP</p>
   <h1 style="font-size:22px;margin:0 0 16px">${escapeHtml(body.heading)}</h1>
   ${body.paragraphs.map(p => `<p style="font-size:16px;line-height:1.5;margin:0 0 12px">${escapeHtml(p)}</p>`).join('\n')}
+  ${body.facts?.length ? `<table role="presentation" cellpadding="4" cellspacing="0" style="font-size:15px;margin:0 0 12px">${body.facts.map(([label, value]) => `<tr><th align="left" valign="top" style="padding-right:12px">${escapeHtml(label)}</th><td>${escapeHtml(value)}</td></tr>`).join('')}</table>` : ''}
+  ${body.images?.length ? `<p style="margin:0 0 12px">${body.images.map(image => `<img src="cid:${escapeHtml(image.cid)}" alt="${escapeHtml(image.alt)}" width="160" style="border-radius:6px;margin:0 8px 8px 0">`).join('')}</p>` : ''}
   ${button}
   ${body.footnote ? `<p style="font-size:13px;color:#4a453d;margin-top:24px">${escapeHtml(body.footnote)}</p>` : ''}
   </td></tr></table></td></tr></table></body></html>`

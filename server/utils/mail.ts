@@ -23,10 +23,15 @@ export interface OutgoingMail {
   attachments?: { filename: string, content: Buffer, cid?: string, contentType?: string }[]
 }
 
+/** Sends one message, throwing when the relay refused or could not be reached (the mail outbox retries). */
+export async function deliverMail(message: OutgoingMail): Promise<void> {
+  await mailer().sendMail({ from: useRuntimeConfig().mail.from, ...message })
+}
+
 /** Sends one message; false (and a log line) when the relay refused or could not be reached. */
 export async function sendMail(message: OutgoingMail): Promise<boolean> {
   try {
-    await mailer().sendMail({ from: useRuntimeConfig().mail.from, ...message })
+    await deliverMail(message)
     return true
   }
   catch (error) {

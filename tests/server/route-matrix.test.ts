@@ -61,6 +61,12 @@ const freshFlag = async () => {
   await testDb()('review_notes').insert({ id, organisation_id: ours.organisationId, job_id: ours.jobId, day_sheet_id: day, subject_type: 'day_sheet', subject_id: day, kind: 'flag', reason: 'other', body: 'Matrix flag' })
   return id
 }
+// A new job with a fresh id for each caller; an edit of our job at its current revision.
+const newJobBody = () => ({ id: randomUUID(), name: 'Matrix patio', customerName: 'Matrix customer', siteAddress: '2 Matrix Road', crewDaysBid: 3, crewSize: 2, personHoursBid: 48 })
+async function ourJobEdit() {
+  const { revision } = await testDb()('jobs').where({ id: ours.jobId }).first('revision')
+  return { revision, name: 'Fixture walk', customerName: 'Fixture customer', siteAddress: '1 Fixture Way', status: 'active', crewDaysBid: 4, crewSize: 3, personHoursBid: 96, startDate: '2026-11-02', foremanId: ours.foreman.userId, crewLeadIds: [ours.lead.userId] }
+}
 
 const cases: Record<string, Case> = {
   'GET /api/health': { request: path('/api/health'), expect: [200, 200, 200, 200, 200] },
@@ -81,6 +87,20 @@ const cases: Record<string, Case> = {
   'GET /api/jobs': { request: path('/api/jobs'), expect: [401, 200, 200, 200, 200] },
   'GET /api/jobs/:id': { request: async () => ({ path: `/api/jobs/${ours.jobId}` }), expect: [401, 200, 200, 200, 404] },
   // A batch for our job: another company's office gets 200 with the record rejected (tests/server/sync.test.ts).
+  'POST /api/jobs': { request: async () => ({ path: '/api/jobs', body: newJobBody() }), expect: [401, 403, 403, 201, 201] },
+  'PATCH /api/jobs/:id': { request: async () => ({ path: `/api/jobs/${ours.jobId}`, body: await ourJobEdit() }), expect: [401, 403, 403, 200, 404] },
+  'GET /api/jobs/:id/setup': { request: async () => ({ path: `/api/jobs/${ours.jobId}/setup` }), expect: [401, 403, 403, 200, 404] },
+  'GET /api/jobs/people': { request: path('/api/jobs/people'), expect: [401, 403, 403, 200, 200] },
+  'GET /api/jobs/:id/days': { request: async () => ({ path: `/api/jobs/${ours.jobId}/days` }), expect: [401, 403, 200, 200, 404] },
+  'GET /api/jobs/:id/photos': { request: async () => ({ path: `/api/jobs/${ours.jobId}/photos` }), expect: [401, 403, 200, 200, 404] },
+  'GET /api/exports/jobs': { request: path('/api/exports/jobs'), expect: [401, 403, 200, 200, 200] },
+  'GET /api/exports/job-days/:id': { request: async () => ({ path: `/api/exports/job-days/${ours.jobId}` }), expect: [401, 403, 200, 200, 404] },
+  'GET /api/exports/payroll': { request: path('/api/exports/payroll?from=2026-11-01&to=2026-11-30'), expect: [401, 403, 403, 200, 200] },
+  'GET /api/reports/day/:id': { request: async () => ({ path: `/api/reports/day/${await ourDaySheet()}` }), expect: [401, 403, 200, 200, 404] },
+  'GET /api/reports/job/:id': { request: async () => ({ path: `/api/reports/job/${ours.jobId}` }), expect: [401, 403, 200, 200, 404] },
+  'GET /api/organisation/holidays': { request: path('/api/organisation/holidays'), expect: [401, 403, 200, 200, 200] },
+  'PUT /api/organisation/holidays': { request: async () => ({ path: '/api/organisation/holidays', body: { holidays: ['2026-12-25'] } }), expect: [401, 403, 403, 200, 200] },
+  'GET /api/organisation/holiday-suggestions': { request: path('/api/organisation/holiday-suggestions?country=US&year=2027'), expect: [401, 403, 403, 200, 200] },
   'POST /api/sync': {
     request: async () => ({
       path: '/api/sync',
@@ -139,6 +159,9 @@ describe('job scoping inside one company', () => {
 
   it('lists only the company\'s own jobs to the office', async () => {
     const { jobs } = await (await call('GET', '/api/jobs', { cookie: cookies.otherOffice })).json()
-    expect(jobs.map((j: { id: string }) => j.id)).toEqual([theirs.jobId])
+    // Their own fixture job and the ones their office created in the matrix above, nothing of ours.
+    const theirIds = await testDb()('jobs').where({ organisation_id: theirs.organisationId }).orderBy('id').pluck('id')
+    expect(jobs.map((j: { id: string }) => j.id).sort()).toEqual(theirIds.sort())
+    expect(theirIds).toContain(theirs.jobId)
   })
 })

@@ -1,8 +1,8 @@
+import { jobsTableQuery } from '../../../shared/schemas/jobs'
+
 export default defineEventHandler(async (event) => {
   const member = await requireMember(event)
-  const jobs = await visibleJobs(member).orderBy('jobs.start_date', 'desc').select(
-    'jobs.id', 'jobs.name', 'jobs.customer_name as customerName', 'jobs.site_address as siteAddress',
-    'jobs.status', 'jobs.crew_days_bid as crewDaysBid', 'jobs.start_date as startDate',
-  )
-  return { jobs }
+  // The crew lead's phone lists the jobs they lead; the bid figures are for the office and foremen.
+  if (member.role === 'crew_lead') return { jobs: await crewLeadJobs(member) }
+  return { jobs: await jobsTable(member, await queryWith(event, jobsTableQuery)) }
 })

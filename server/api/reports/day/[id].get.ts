@@ -1,0 +1,7 @@
+import { uuidParam } from '../../../../shared/schemas/auth'
+
+export default defineEventHandler(async (event) => {
+  const member = await requireMember(event, ['office', 'foreman'])
+  const { id } = await paramsWith(event, uuidParam)
+  return { report: await requireDayReport(member, id) }
+})

@@ -1,0 +1,177 @@
+// Day reports and rain-out notices go through the mail outbox to the local mail catcher: read back
+// here with their thumbnails. The outbox timer ticks every second in this file (NUXT_REPORTS_INTERVAL_SECONDS).
+import { randomUUID } from 'node:crypto'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { fetch } from '@nuxt/test-utils/e2e'
+import sharp from 'sharp'
+import { useBuiltServer } from '../support/server'
+import { createCompany, type FixtureCompany } from '../support/fixtures'
+import { signIn, type Cookie } from '../support/http'
+import { addZoneAndCrew, dayWithWork, sync } from '../support/daybook'
+import { testDb } from '../support/db'
+import { phoneJpeg } from '../support/images'
+import { startMailCatcher, type CaughtMessage, type MailCatcher } from '../../scripts/mail-catcher'
+
+let catcher: MailCatcher = await startMailCatcher({ smtpPort: 0, httpPort: 0 })
+const smtpPort = catcher.smtpPort
+await useBuiltServer({ NUXT_MAIL_SMTP_HOST: '127.0.0.1', NUXT_MAIL_SMTP_PORT: String(smtpPort), NUXT_REPORTS_INTERVAL_SECONDS: '1', NUXT_REPORTS_EVENING_HOUR: '19' })
+
+let company: FixtureCompany
+let lead: Cookie
+let zoneId: string
+let crew: string[]
+const homeowner = `homeowner.${randomUUID().slice(0, 8)}@example.test`
+
+/** The first caught message to `to` whose subject matches, waiting for the outbox to send it. */
+async function messageTo(to: string, subject: RegExp, timeoutMs = 20_000): Promise<CaughtMessage> {
+  const deadline = Date.now() + timeoutMs
+  while (Date.now() < deadline) {
+    const found = catcher.messages().find(m => m.to.includes(to) && subject.test(m.subject))
+    if (found) return found
+    await new Promise(r => setTimeout(r, 100))
+  }
+  throw new Error(`no message "${subject}" to ${to} arrived`)
+}
+const messagesTo = (to: string, subject: RegExp) => catcher.messages().filter(m => m.to.includes(to) && subject.test(m.subject))
+const ticks = (n: number) => new Promise(r => setTimeout(r, n * 1000 + 300))
+
+async function uploadPhoto(cookie: Cookie, sheetId: string, caption: string): Promise<void> {
+  const body = new Uint8Array(await phoneJpeg({ width: 1200, height: 900 }))
+  const response = await fetch(`/api/photos/${randomUUID()}?subjectType=day_sheet&subjectId=${sheetId}&caption=${encodeURIComponent(caption)}`, { method: 'PUT', body, headers: { 'content-type': 'image/jpeg', cookie } })
+  expect(response.status).toBe(201)
+}
+
+/** A time zone where it is now between `from` and `to` o'clock, and the date there. */
+function zoneWhereItIs(from: number, to: number): { timeZone: string, date: string } {
+  for (let offset = -12; offset <= 14; offset++) {
+    // Etc/GMT signs are inverted (POSIX): Etc/GMT-5 is five hours ahead of UTC.
+    const timeZone = offset === 0 ? 'Etc/GMT' : `Etc/GMT${offset > 0 ? '-' : '+'}${Math.abs(offset)}`
+    const parts = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', hourCycle: 'h23' }).formatToParts(new Date())
+    const part = (type: string) => parts.find(p => p.type === type)?.value ?? ''
+    const hour = Number(part('hour'))
+    if (hour >= from && hour <= to) return { timeZone, date: `${part('year')}-${part('month')}-${part('day')}` }
+  }
+  throw new Error(`no time zone is between ${from} and ${to} o'clock now`)
+}
+
+beforeAll(async () => {
+  company = await createCompany('Kestrel Paving')
+  ;({ zoneId, crew } = await addZoneAndCrew(company.organisationId, company.jobId))
+  await testDb()('jobs').where({ id: company.jobId }).update({ homeowner_updates: true, customer_email: homeowner })
+  lead = await signIn(company.lead.email)
+})
+
+afterAll(async () => {
+  await catcher.stop()
+})
+
+describe('the day report', () => {
+  let sheetId: string
+  let report: CaughtMessage
+
+  beforeAll(async () => {
+    const day = dayWithWork(company.jobId, zoneId, crew, '2026-11-24')
+    sheetId = day.sheetId
+    expect((await sync(lead, day.changes)).response.status).toBe(200)
+    for (let i = 1; i <= 7; i++) await uploadPhoto(lead, sheetId, `Base, corner ${i}`)
+  })
+
+  it('is not sent while the day waits for the foreman', async () => {
+    await ticks(2)
+    expect(messagesTo(company.office.email, /^Day report/)).toEqual([])
+    expect(await testDb()('mail_outbox').where({ day_sheet_id: sheetId, kind: 'day_report' }).first()).toBeUndefined()
+  })
+
+  it('goes to the office once the foreman approves the day, with crew, hours, weather, work, drops and lifts', async () => {
+    await testDb()('day_sheets').where({ id: sheetId }).update({ review_state: 'approved', reviewed_by: company.foreman.userId, reviewed_at: new Date() })
+    report = await messageTo(company.office.email, /^Day report: Fixture walk, 2026-11-24$/)
+    expect(report.to).not.toContain(homeowner)
+    for (const line of ['Day: Full day', 'Weather: Clear, 54 °F', 'Review: Approved by the foreman', 'On site: 07:00 to 15:30', 'Crew and hours: Crew 1 8 h, Crew 2 8 h, Crew 3 8 h (total 24 h)',
+      'Work done: Base for the front walk', 'Material drops: 12 ton 3/4 in crushed stone at Driveway apron', 'Base lifts: Front walk lift 1: 3/4 in crushed stone, 4 in loose to 3 in compacted, 4 passes']) {
+      expect(report.text).toContain(line)
+    }
+  })
+
+  it('carries six thumbnails of the day inline (of seven photos), each shown in the message', async () => {
+    const images = report.attachments.filter(a => a.contentType === 'image/jpeg')
+    expect(images).toHaveLength(6)
+    for (const image of images) expect(report.html).toContain(`cid:${image.cid}`)
+    const response = await globalThis.fetch(`http://127.0.0.1:${catcher.httpPort}/messages/${report.id}/attachments/0`)
+    const { width, height, format } = await sharp(Buffer.from(await response.arrayBuffer())).metadata()
+    expect(format).toBe('jpeg')
+    // The stored thumbnail size (long edge 400 px), not the 1200 px original.
+    expect(Math.max(width ?? 0, height ?? 0)).toBe(400)
+    expect(report.html).toContain('alt="Base, corner 1"')
+  })
+
+  it('goes to the homeowner who asked for updates, without the crew\'s names and hours', async () => {
+    const copy = await messageTo(homeowner, /^Day report: Fixture walk, 2026-11-24$/)
+    expect(copy.to).toEqual([homeowner])
+    expect(copy.text).toContain('Crew: 3 on site')
+    expect(copy.text).not.toContain('Crew 1')
+    expect(copy.attachments.filter(a => a.contentType === 'image/jpeg')).toHaveLength(6)
+  })
+
+  it('is sent once, however many times the outbox runs', async () => {
+    await ticks(2)
+    expect(messagesTo(company.office.email, /^Day report: Fixture walk, 2026-11-24$/)).toHaveLength(1)
+    expect(messagesTo(homeowner, /^Day report/)).toHaveLength(1)
+  })
+})
+
+describe('the rain-out notice', () => {
+  it('reaches the job\'s foreman and the office as soon as the rain-out is synced', async () => {
+    const sheetId = randomUUID()
+    const { response } = await sync(lead, [{ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id: sheetId, jobId: company.jobId, workDate: '2026-11-25', status: 'rain_out', hoursLost: 8, hoursLostReason: 'Standing water on the base', weatherConditions: 'Heavy rain', rainIn: 1.2 } }])
+    expect(response.status).toBe(200)
+    const notice = await messageTo(company.foreman.email, /^Rain-out: Fixture walk, 2026-11-25$/)
+    expect(notice.to.sort()).toEqual([company.foreman.email, company.office.email].sort())
+    expect(notice.text).toContain('Standing water on the base')
+    expect(notice.text).toContain('Heavy rain, 1.2 in of rain')
+    expect(notice.to).not.toContain(company.otherForeman.email)
+  })
+})
+
+describe('the evening report', () => {
+  it('sends the day\'s unapproved sheet at the evening hour in the company\'s own time zone, and not where it is still day', async () => {
+    const evening = zoneWhereItIs(20, 22)
+    const daytime = zoneWhereItIs(9, 15)
+    const late = await createCompany('Evening Stone')
+    const early = await createCompany('Morning Stone')
+    await testDb()('organisations').where({ id: late.organisationId }).update({ time_zone: evening.timeZone })
+    await testDb()('organisations').where({ id: early.organisationId }).update({ time_zone: daytime.timeZone })
+    const lateSheet = randomUUID()
+    const earlySheet = randomUUID()
+    await testDb()('day_sheets').insert([
+      { id: lateSheet, job_id: late.jobId, work_date: evening.date, status: 'full_day', work_done: 'Edge restraint set' },
+      { id: earlySheet, job_id: early.jobId, work_date: daytime.date, status: 'full_day', work_done: 'Screeding' },
+    ])
+    const report = await messageTo(late.office.email, /^Day report: Fixture walk/)
+    expect(report.text).toContain('Review: Not yet approved by the foreman')
+    expect(report.text).toContain('Work done: Edge restraint set')
+    await ticks(2)
+    expect(messagesTo(early.office.email, /^Day report/)).toEqual([])
+    expect(await testDb()('mail_outbox').where({ day_sheet_id: earlySheet }).first()).toBeUndefined()
+  })
+})
+
+describe('a relay that is down', () => {
+  it('never blocks the sync, and the notice goes out when the relay is back', async () => {
+    await catcher.stop()
+    const sheetId = randomUUID()
+    const { response } = await sync(lead, [{ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id: sheetId, jobId: company.jobId, workDate: '2026-11-26', status: 'rain_out', hoursLost: 8 } }])
+    expect(response.status).toBe(200)
+    await expect.poll(async () => await testDb()('mail_outbox').where({ day_sheet_id: sheetId, kind: 'rain_out' }).first(), { timeout: 15_000, interval: 250 })
+      .toMatchObject({ sent_at: null, last_error: expect.any(String), attempts: expect.any(Number) })
+    const failed = await testDb()('mail_outbox').where({ day_sheet_id: sheetId, kind: 'rain_out' }).first()
+    expect(failed.attempts).toBeGreaterThanOrEqual(1)
+    catcher = await startMailCatcher({ smtpPort, httpPort: 0 })
+    const notice = await messageTo(company.foreman.email, /^Rain-out: Fixture walk, 2026-11-26$/, 40_000)
+    expect(notice.to).toContain(company.office.email)
+    // The row is marked sent just after the relay took the message.
+    await expect.poll(async () => (await testDb()('mail_outbox').where({ day_sheet_id: sheetId, kind: 'rain_out' }).first()).sent_at, { timeout: 5000 }).not.toBeNull()
+    const sent = await testDb()('mail_outbox').where({ day_sheet_id: sheetId, kind: 'rain_out' }).first()
+    expect(sent.attempts).toBeGreaterThanOrEqual(2)
+    expect(messagesTo(company.foreman.email, /^Rain-out: Fixture walk, 2026-11-26$/)).toHaveLength(1)
+  })
+})
