@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { checkLift, worstStatus, type LiftCheckInput } from '../../shared/utils/lift-checks'
 
 const walk = { kind: 'walkway' as const, designBaseDepthIn: 6, baseExtensionIn: 6 }
-const input = (over: Partial<LiftCheckInput> & { lift?: Partial<LiftCheckInput['lift']> } = {}): LiftCheckInput => ({
+const input = (over: Omit<Partial<LiftCheckInput>, 'lift'> & { lift?: Partial<LiftCheckInput['lift']> } = {}): LiftCheckInput => ({
   zone: walk, compactedBeforeIn: 0, hasPhoto: true, ...over,
   lift: { looseIn: 4, compactedIn: 3, compactorClass: 'plate-medium', ...over.lift },
 })
