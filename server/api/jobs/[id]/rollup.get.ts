@@ -4,6 +4,5 @@ import { uuidParam } from '../../../../shared/schemas/auth'
 export default defineEventHandler(async (event) => {
   const member = await requireMember(event, ['foreman', 'office'])
   const { id } = await paramsWith(event, uuidParam)
-  await requireVisibleJob(member, id)
-  return await jobRollup(id)
+  return await jobRollupFor(member, id)
 })
