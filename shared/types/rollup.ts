@@ -13,7 +13,7 @@ export interface RollupTotals {
   /** Full day 1, half day 0.5, rain-out and no work 0 (shared/utils/daybook.ts). */
   crewDaysUsed: number
   crewDaysLeft: number
-  /** Crew-days used over the bid, 0.5 for half; null when the bid is 0. */
+  /** Crew-days used divided by the bid (0.5 when half is used); null when the bid is 0. */
   shareOfBidUsed: number | null
   personHours: number
   weatherDays: number

@@ -7,6 +7,7 @@ import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { call, signIn } from '../support/http'
 import { testDb } from '../support/db'
 import { rollupStatements } from '../../server/utils/rollup-sql'
+import { checkedLifts } from '../../server/utils/lift-review-sql'
 import type { JobRollup, ReviewedLift } from '../../shared/types/rollup'
 
 await useBuiltServer()
@@ -16,6 +17,7 @@ let foreman: string
 const zones = { walk: randomUUID(), wall: randomUUID(), drain: randomUUID() }
 const lifts = { walk1: randomUUID(), walk2: randomUUID(), wall1: randomUUID(), wall2: randomUUID() }
 const crew = [randomUUID(), randomUUID(), randomUUID()]
+const sheets = { half: '' }
 
 async function day(jobId: string, workDate: string, status: string, hoursLost: number, hours: number[]) {
   const id = randomUUID()
@@ -42,6 +44,7 @@ beforeAll(async () => {
   ])
   const full1 = await day(company.jobId, '2026-11-02', 'full_day', 0, [8, 8, 8])
   const half = await day(company.jobId, '2026-11-03', 'half_day', 0, [4, 4])
+  sheets.half = half
   await day(company.jobId, '2026-11-04', 'rain_out', 2, [0, 0, 0])
   await day(company.jobId, '2026-11-06', 'no_work', 0, [])
   const full2 = await day(company.jobId, '2026-11-09', 'full_day', 0, [7.5, 7.5, 7.5])
@@ -177,6 +180,15 @@ describe('lift checks re-computed on the server', () => {
     // 6 in design, still on depth; the pad reaches 4 in past the face of the 6 in asked (SRW guides): warn.
     expect(byId.get(lifts.wall2)).toMatchObject({ compactedBeforeIn: 3.5, lastInZone: true })
     expect(statuses(lifts.wall2)).toEqual({ loose_thickness: 'fail', design_depth: 'pass', base_extension: 'warn', photo_before_cover: 'pass' })
+  })
+})
+
+describe('lift checks for the days under review', () => {
+  it('re-checks only the lifts of the days asked, counting the zone\'s earlier days below them', async () => {
+    // The half day holds walk lift 2 only; walk lift 1 of the day before puts 3 in below it.
+    const checked = await checkedLifts(testDb(), { dayIds: [sheets.half] })
+    expect(checked.map(l => [l.liftId, l.compactedBeforeIn, l.lastInZone, l.worst])).toEqual([[lifts.walk2, 3, true, 'fail']])
+    expect(await checkedLifts(testDb(), { dayIds: [] })).toEqual([])
   })
 })
 
