@@ -7,7 +7,11 @@ export interface Statement { sql: string, bindings: (string | number)[] }
 
 const day = crewDaySql('d.status')
 
-export function rollupStatements(jobId: string): { totals: Statement, zones: Statement, materials: Statement, series: Statement } {
+/**
+ * `visible`, when given, is a query of the job ids the member may see (visibleJobs): the totals then
+ * come back empty for a job they may not see, so the access check costs no query of its own.
+ */
+export function rollupStatements(jobId: string, visible?: Statement): { totals: Statement, zones: Statement, materials: Statement, series: Statement } {
   return {
     // One row: the job's bid and every day-level figure. Person-hours come from the time entries
     // of the job's sheets, summed apart so that the sheet join does not multiply them.
@@ -28,9 +32,9 @@ export function rollupStatements(jobId: string): { totals: Statement, zones: Sta
           COALESCE(DATEDIFF(MAX(d.work_date), MIN(d.work_date)) + 1, 0) AS calendarDays,
           (SELECT COALESCE(SUM(te.hours), 0) FROM time_entries te JOIN day_sheets s ON s.id = te.day_sheet_id WHERE s.job_id = j.id) AS personHours
         FROM jobs j LEFT JOIN day_sheets d ON d.job_id = j.id
-        WHERE j.id = ?
+        WHERE j.id = ?${visible ? ` AND j.id IN (${visible.sql})` : ''}
         GROUP BY j.id, j.crew_days_bid, j.person_hours_bid`,
-      bindings: [jobId],
+      bindings: [jobId, ...(visible?.bindings ?? [])],
     },
     // Per zone: how many lifts, and the compacted depth they add up to, against the design.
     zones: {
