@@ -5,6 +5,7 @@ import * as organisationsAndPeople from './migrations/20261201000001_organisatio
 import * as jobs from './migrations/20261201000002_jobs'
 import * as daybook from './migrations/20261201000003_daybook'
 import * as reviewSyncAudit from './migrations/20261201000004_review_sync_audit'
+import * as reviewListIndex from './migrations/20261202000001_review_list_index'
 import * as mailOutbox from './migrations/20261202040001_mail_outbox'
 
 export const migrations: Record<string, Knex.Migration> = {
@@ -12,6 +13,7 @@ export const migrations: Record<string, Knex.Migration> = {
   '20261201000002_jobs.ts': jobs,
   '20261201000003_daybook.ts': daybook,
   '20261201000004_review_sync_audit.ts': reviewSyncAudit,
+  '20261202000001_review_list_index.ts': reviewListIndex,
   '20261202040001_mail_outbox.ts': mailOutbox,
 }
 

@@ -79,6 +79,26 @@ export const useDaybookStore = defineStore('daybook', () => {
   /** A job's zones with the phone's pending edits on top (the Plan screen writes design values here). */
   const zonesOf = (jobId: string) => (all('zone') as unknown as ZoneRecord[]).filter(z => z.jobId === jobId).sort((a, b) => a.name.localeCompare(b.name))
   const estimatesOf = (jobId: string) => (all('material_estimate') as unknown as MaterialEstimateRecord[]).filter(e => e.jobId === jobId)
+  const zoneById = (zoneId: string) => records.value[`zone:${zoneId}`]?.record as unknown as ZoneRecord | undefined
+
+  /**
+   * Compacted depth already in a zone below a lift: the zone's lifts on earlier days, then those
+   * logged before it on its own day. A sheet not saved yet is the newest day. Only the days the
+   * phone holds count (the snapshot's recent days and everything logged on it).
+   */
+  function compactedBeforeIn(zoneId: string, sheetId: string, liftId?: string): number {
+    const dateOf = new Map(sheets.value.map(s => [s.id, s.workDate]))
+    const ownDate = dateOf.get(sheetId)
+    const zoneLifts = (all('lift') as unknown as LiftRecord[]).filter(l => l.zoneId === zoneId)
+    const earlier = zoneLifts.filter((l) => {
+      const date = dateOf.get(l.daySheetId)
+      return l.daySheetId !== sheetId && date !== undefined && (ownDate === undefined || date < ownDate)
+    })
+    const sameDay = liftsOf(sheetId).filter(l => l.zoneId === zoneId)
+    const at = liftId ? sameDay.findIndex(l => l.id === liftId) : -1
+    const below = [...earlier, ...(at >= 0 ? sameDay.slice(0, at) : sameDay)]
+    return below.reduce((sum, l) => sum + l.compactedIn, 0)
+  }
 
   function lastCrewFor(jobId: string, beforeDate: string): { crewMemberId: string, hours: number }[] {
     const earlier = sheets.value.filter(s => s.jobId === jobId && s.workDate < beforeDate && entriesOf(s.id).length > 0)
@@ -171,7 +191,7 @@ export const useDaybookStore = defineStore('daybook', () => {
     saveDrop: (r: MaterialDropRecord) => save('material_drop', r),
     saveZone: (r: ZoneRecord) => save('zone', r),
     saveEstimate: (r: MaterialEstimateRecord) => save('material_estimate', r),
-    zonesOf, estimatesOf,
+    zonesOf, estimatesOf, zoneById, compactedBeforeIn,
     setCrewHours, remove, logRainOut, addPhotos,
     flagsOfJob, flagsOfDay, answersOf, answerFlag,
     newId: () => crypto.randomUUID(),

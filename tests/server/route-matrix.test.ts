@@ -86,6 +86,8 @@ const cases: Record<string, Case> = {
   'POST /api/profile/password': { request: async () => ({ path: '/api/profile/password', body: { currentPassword: 'not-mine', newPassword: 'long-enough-password' } }), expect: [401, 422, 422, 422, 422] },
   'GET /api/jobs': { request: path('/api/jobs'), expect: [401, 200, 200, 200, 200] },
   'GET /api/jobs/:id': { request: async () => ({ path: `/api/jobs/${ours.jobId}` }), expect: [401, 200, 200, 200, 404] },
+  'GET /api/jobs/:id/rollup': { request: async () => ({ path: `/api/jobs/${ours.jobId}/rollup` }), expect: [401, 403, 200, 200, 404] },
+  'GET /api/jobs/:id/lift-checks': { request: async () => ({ path: `/api/jobs/${ours.jobId}/lift-checks` }), expect: [401, 403, 200, 200, 404] },
   // A batch for our job: another company's office gets 200 with the record rejected (tests/server/sync.test.ts).
   'POST /api/jobs': { request: async () => ({ path: '/api/jobs', body: newJobBody() }), expect: [401, 403, 403, 201, 201] },
   'PATCH /api/jobs/:id': { request: async () => ({ path: `/api/jobs/${ours.jobId}`, body: await ourJobEdit() }), expect: [401, 403, 403, 200, 404] },

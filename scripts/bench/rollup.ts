@@ -1,0 +1,170 @@
+// `npm run bench:rollup`: 500 jobs × 60 days × 5 crew with lifts, plus one job of 120 days. Measures
+// the job-rollup route for the 120-day job against the same SQL run bare, and the foreman's review
+// list at p50 and p95. Figures only: nothing here passes or fails.
+import { randomUUID } from 'node:crypto'
+import { existsSync } from 'node:fs'
+import { resolve } from 'node:path'
+import type { Knex } from 'knex'
+import { root } from '../config'
+import { rollupStatements } from '../../server/utils/rollup-sql'
+import type { DayStatus } from '../../shared/utils/daybook'
+import { freshDatabase, median, percentile, signIn, startServer, timed } from './harness'
+import { benchPassword, seedCompany } from './seed'
+import { failInOneLine } from '../run-helpers'
+
+const database = 'tamp_bench_rollup'
+const jobCount = 500
+const daysPerJob = 60
+const longJobDays = 120
+const rounds = 120
+const reviewRounds = 200
+const chunk = 2000
+// The last days of each job wait for the foreman; the earlier ones are approved.
+const waitingDays = 5
+
+type Row = Record<string, unknown>
+
+/** A day's status by its place in the job: mostly full days, some half days, rain-outs and idle days. */
+function statusOf(day: number): DayStatus {
+  if (day % 15 === 7) return 'rain_out'
+  if (day % 20 === 13) return 'half_day'
+  if (day % 30 === 29) return 'no_work'
+  return 'full_day'
+}
+const hoursOf: Record<DayStatus, number | null> = { full_day: 8, half_day: 4, rain_out: 0, no_work: null }
+
+function dateAfter(start: string, days: number): string {
+  return new Date(Date.parse(`${start}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10)
+}
+
+class BulkWriter {
+  private pending = new Map<string, Row[]>()
+  constructor(private db: Knex) {}
+  async add(table: string, row: Row): Promise<void> {
+    const rows = this.pending.get(table) ?? []
+    rows.push(row)
+    this.pending.set(table, rows)
+    if (rows.length >= chunk) await this.flush(table)
+  }
+
+  async flush(table?: string): Promise<void> {
+    // Parents first: sheets before the entries, lifts and drops that refer to them.
+    for (const name of table ? [table] : ['day_sheets', 'time_entries', 'lifts', 'material_drops', 'material_estimates']) {
+      const rows = this.pending.get(name)
+      if (!rows?.length) continue
+      this.pending.set(name, [])
+      if (name !== 'day_sheets') await this.flush('day_sheets')
+      await this.db(name).insert(rows)
+    }
+  }
+}
+
+async function seedDays(job: { id: string, zoneId: string }, crew: string[], start: string, days: number, out: BulkWriter) {
+  for (let day = 0; day < days; day++) {
+    const id = randomUUID()
+    const status = statusOf(day)
+    await out.add('day_sheets', {
+      id, job_id: job.id, work_date: dateAfter(start, day), status, hours_lost: status === 'rain_out' ? 3 : 0,
+      review_state: day >= days - waitingDays ? 'waiting' : 'approved',
+    })
+    const hours = hoursOf[status]
+    if (hours !== null) for (const person of crew) await out.add('time_entries', { id: randomUUID(), day_sheet_id: id, crew_member_id: person, hours })
+    // Base goes in over the first days of the job: two lifts a day.
+    if (day < 6 && status === 'full_day') {
+      for (let n = 0; n < 2; n++) {
+        await out.add('lifts', { id: randomUUID(), day_sheet_id: id, job_id: job.id, zone_id: job.zoneId, sequence: day * 2 + n + 1, material: '3/4 in crushed stone', loose_in: 4, compacted_in: 3, passes: 4, compactor_class: 'plate-medium' })
+      }
+    }
+    if (day % 10 === 0) await out.add('material_drops', { id: randomUUID(), day_sheet_id: id, job_id: job.id, material: '3/4 in crushed stone', quantity: 12, unit: 'ton' })
+  }
+  await out.add('material_estimates', { id: randomUUID(), job_id: job.id, material: '3/4 in crushed stone', quantity: 60, unit: 'ton' })
+}
+
+// The foreman's review list: the day sheets waiting across their jobs, newest first, and the count
+// per job. Used when this branch has no review route, as a stand-in for it.
+async function reviewStandIn(db: Knex, organisationId: string, foremanId: string): Promise<void> {
+  await Promise.all([
+    db.raw(`SELECT d.id, d.job_id, j.name, d.work_date, d.status FROM day_sheets d JOIN jobs j ON j.id = d.job_id
+      WHERE j.organisation_id = ? AND j.foreman_id = ? AND d.review_state = 'waiting' ORDER BY d.work_date DESC, d.id DESC LIMIT 50`, [organisationId, foremanId]),
+    db.raw(`SELECT d.job_id, COUNT(*) AS waiting FROM day_sheets d JOIN jobs j ON j.id = d.job_id
+      WHERE j.organisation_id = ? AND j.foreman_id = ? AND d.review_state = 'waiting' GROUP BY d.job_id`, [organisationId, foremanId]),
+  ])
+}
+
+async function main(): Promise<void> {
+  const db = await freshDatabase(database)
+  const seeding = await timed(async () => {
+    const company = await seedCompany(db, jobCount + 1)
+    const out = new BulkWriter(db)
+    const regular = company.jobs.slice(0, jobCount)
+    for (const job of regular) await seedDays(job, company.crew, '2026-06-01', daysPerJob, out)
+    const long = company.jobs[jobCount]!
+    await seedDays(long, company.crew, '2026-03-02', longJobDays, out)
+    await out.flush()
+    await db.raw('ANALYZE TABLE day_sheets, time_entries, lifts, material_drops, jobs')
+    return { company, long }
+  })
+  const { company, long } = seeding.value
+  const counts = await db('day_sheets').count({ n: '*' }).first()
+  const entries = await db('time_entries').count({ n: '*' }).first()
+  console.log(`seeded ${counts?.n} day sheets and ${entries?.n} time entries (${jobCount} jobs × ${daysPerJob} days × 5 crew, and one job of ${longJobDays} days) in ${(seeding.ms / 1000).toFixed(1)} s`)
+
+  const server = await startServer(database)
+  try {
+    const cookie = await signIn(server.url, company.foremanEmail, benchPassword)
+    // What the server says it spent on each answer (Server-Timing, server/plugins/server-timing.ts).
+    const serverMs: number[] = []
+    const route = async () => {
+      const response = await fetch(`${server.url}/api/jobs/${long.id}/rollup`, { headers: { cookie } })
+      if (response.status !== 200) throw new Error(`rollup route answered ${response.status}`)
+      const spent = /app;dur=([\d.]+)/.exec(response.headers.get('server-timing') ?? '')?.[1]
+      if (!spent) throw new Error('the rollup route sent no Server-Timing')
+      serverMs.push(Number(spent))
+      return await response.json()
+    }
+    // The foreman's access rule as the route adds it (visibleJobs for a foreman), written out here.
+    const visible = { sql: 'SELECT jobs.id FROM jobs WHERE jobs.organisation_id = ? AND jobs.foreman_id = ? AND jobs.id = ?', bindings: [company.organisationId, company.foremanId, long.id] }
+    const statements = Object.values(rollupStatements(long.id, visible))
+    // The same statements, side by side on a pool as the route runs them, with nothing around them.
+    const bare = () => Promise.all(statements.map(s => db.raw(s.sql, s.bindings)))
+    for (let i = 0; i < 10; i++) {
+      await route()
+      await bare()
+    }
+    const routeMs: number[] = []
+    const bareMs: number[] = []
+    serverMs.length = 0
+    for (let r = 0; r < rounds; r++) {
+      routeMs.push((await timed(route)).ms)
+      bareMs.push((await timed(bare)).ms)
+    }
+    const answer = await route()
+    console.log(`rollup of the ${longJobDays}-day job: ${answer.totals.crewDaysUsed} crew-days used of ${answer.totals.crewDaysBid}, ${answer.series.length} dates`)
+    const serverMedian = median(serverMs.slice(0, rounds))
+    console.log(`rollup: route ${serverMedian.toFixed(2)} ms in the server (session, access check and SQL), ${median(routeMs).toFixed(2)} ms seen by the client over HTTP; bare SQL ${median(bareMs).toFixed(2)} ms; medians of ${rounds}`)
+    console.log(`rollup: client round trip / bare SQL = ${(median(routeMs) / median(bareMs)).toFixed(3)} (the HTTP hop included, for comparison)`)
+
+    const reviewRoute = existsSync(resolve(root, 'server', 'api', 'review', 'index.get.ts'))
+    const review = reviewRoute
+      ? async () => {
+        const response = await fetch(`${server.url}/api/review`, { headers: { cookie } })
+        if (response.status !== 200) throw new Error(`review route answered ${response.status}`)
+        await response.arrayBuffer()
+      }
+      : () => reviewStandIn(db, company.organisationId, company.foremanId)
+    for (let i = 0; i < 10; i++) await review()
+    const reviewMs: number[] = []
+    for (let r = 0; r < reviewRounds; r++) reviewMs.push((await timed(review)).ms)
+    console.log(reviewRoute
+      ? `review list: GET /api/review for a foreman of ${jobCount + 1} jobs`
+      : `review list: NO /api/review ROUTE ON THIS BRANCH: measured a stand-in SQL query (waiting days across the foreman's ${jobCount + 1} jobs, newest first, 50 a page, with counts per job), not a route`)
+    console.log(`review list: p50 ${percentile(reviewMs, 50).toFixed(2)} ms, p95 ${percentile(reviewMs, 95).toFixed(2)} ms over ${reviewRounds} rounds`)
+    console.log(`RESULT rollup_ratio=${(serverMedian / median(bareMs)).toFixed(3)} review_p95_ms=${percentile(reviewMs, 95).toFixed(2)}`)
+  }
+  finally {
+    await server.stop()
+    await db.destroy()
+  }
+}
+
+main().catch(failInOneLine)

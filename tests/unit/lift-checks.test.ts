@@ -1,0 +1,138 @@
+import { describe, expect, it } from 'vitest'
+import { checkLift, worstStatus, type LiftCheckInput } from '../../shared/utils/lift-checks'
+
+const walk = { kind: 'walkway' as const, designBaseDepthIn: 6, baseExtensionIn: 6 }
+const input = (over: Omit<Partial<LiftCheckInput>, 'lift'> & { lift?: Partial<LiftCheckInput['lift']> } = {}): LiftCheckInput => ({
+  zone: walk, compactedBeforeIn: 0, hasPhoto: true, ...over,
+  lift: { looseIn: 4, compactedIn: 3, compactorClass: 'plate-medium', ...over.lift },
+})
+const check = (id: string, over: Parameters<typeof input>[0] = {}) => {
+  const found = checkLift(input(over)).find(c => c.id === id)
+  if (!found) throw new Error(`no check ${id}`)
+  return found
+}
+
+describe('loose lift thickness against the compactor class', () => {
+  // Source: compactor makers' spec sheets and rental-yard charts, from memory: a medium plate
+  // (about 150-250 lb) compacts about 6 in of loose granular base in one lift.
+  it('passes a 6 in loose lift under a medium plate and fails 6.25 in', () => {
+    expect(check('loose_thickness', { lift: { looseIn: 6 } }).status).toBe('pass')
+    expect(check('loose_thickness', { lift: { looseIn: 6.25 } }).status).toBe('fail')
+  })
+
+  // Same source, from memory: a light plate (about 100-150 lb) about 4 in.
+  it('passes 4 in under a light plate and fails 4.25 in', () => {
+    expect(check('loose_thickness', { lift: { looseIn: 4, compactorClass: 'plate-light' } }).status).toBe('pass')
+    expect(check('loose_thickness', { lift: { looseIn: 4.25, compactorClass: 'plate-light' } }).status).toBe('fail')
+  })
+
+  // Same source, from memory: a reversible plate (about 400-900 lb) about 12 in.
+  it('passes 12 in under a reversible plate and fails 12.5 in', () => {
+    expect(check('loose_thickness', { lift: { looseIn: 12, compactedIn: 9, compactorClass: 'plate-reversible' } }).status).toBe('pass')
+    expect(check('loose_thickness', { lift: { looseIn: 12.5, compactedIn: 9, compactorClass: 'plate-reversible' } }).status).toBe('fail')
+  })
+
+  it('reads the older stored id plate_medium as the medium plate', () => {
+    const result = check('loose_thickness', { lift: { looseIn: 6.25, compactorClass: 'plate_medium' } })
+    expect(result.status).toBe('fail')
+    expect(result.values).toMatchObject({ maxIn: 6 })
+  })
+
+  it('names its source and says the figure is from memory', () => {
+    const result = check('loose_thickness')
+    expect(result.basis).toBe('from memory')
+    expect(result.source).toMatch(/spec sheets/)
+    expect(result.rule).toMatch(/6 in/)
+  })
+
+  it('warns, and says so, when the compactor class is unknown', () => {
+    const result = check('loose_thickness', { lift: { compactorClass: 'big orange one' } })
+    expect(result.status).toBe('warn')
+    expect(result.rule).toMatch(/not one Tamp knows/)
+    expect(result.basis).toBeNull()
+  })
+})
+
+describe('compacted depth against the zone design', () => {
+  // The design depth is the zone's own (ICPI's 4 in minimum for walks and patios, published,
+  // is typical; this zone asks 6 in). Over-depth tolerance 1/2 in: common practice, Tamp's threshold.
+  it('passes when the lifts reach the design exactly: 3 in before + 3 in = 6 in', () => {
+    expect(check('design_depth', { compactedBeforeIn: 3 }).status).toBe('pass')
+  })
+
+  it('passes at 1/2 in over the design and warns past it', () => {
+    expect(check('design_depth', { compactedBeforeIn: 3.5 }).status).toBe('pass')
+    const over = check('design_depth', { compactedBeforeIn: 3.75 })
+    expect(over.status).toBe('warn')
+    expect(over.values).toMatchObject({ reachedIn: 6.75, designIn: 6, diffIn: 0.75 })
+    expect(over.basis).toBe('common practice')
+  })
+
+  it('warns while lifts are still to come, and fails when the last lift leaves the base short', () => {
+    expect(check('design_depth', { compactedBeforeIn: 2.75 }).status).toBe('warn')
+    const short = check('design_depth', { compactedBeforeIn: 2.75, lastInZone: true })
+    expect(short.status).toBe('fail')
+    expect(short.values).toMatchObject({ reachedIn: 5.75, diffIn: 0.25 })
+    expect(short.rule).toMatch(/0\.25 in short of the 6 in design/)
+  })
+
+  it('does not fail by a floating-point hair: 2.2 + 1.1 + 2.7 in reaches 6 in', () => {
+    expect(check('design_depth', { compactedBeforeIn: 2.2 + 1.1, lift: { looseIn: 3.5, compactedIn: 2.7 }, lastInZone: true }).status).toBe('pass')
+  })
+
+  it('warns when the zone has no design depth', () => {
+    expect(check('design_depth', { zone: { ...walk, designBaseDepthIn: null } }).status).toBe('warn')
+    expect(check('design_depth', { zone: null }).code).toBe('no_design')
+  })
+})
+
+describe('base extension past the edge', () => {
+  // ICPI (published): the base reaches past the edge restraint the greater of 6 in or the base thickness.
+  it('a walk with 6 in of base passes at 6 in, warns at 5.9 in, fails under 3 in', () => {
+    expect(check('base_extension').status).toBe('pass')
+    expect(check('base_extension', { zone: { ...walk, baseExtensionIn: 5.9 } }).status).toBe('warn')
+    expect(check('base_extension', { zone: { ...walk, baseExtensionIn: 3 } }).status).toBe('warn')
+    expect(check('base_extension', { zone: { ...walk, baseExtensionIn: 2.9 } }).status).toBe('fail')
+    expect(check('base_extension').basis).toBe('published')
+  })
+
+  // ICPI (published): a 10 in driveway base must reach 10 in past the edge, not 6 in.
+  it('a 10 in driveway base needs 10 in past the edge: 9 in warns', () => {
+    const driveway = { kind: 'driveway' as const, designBaseDepthIn: 10, baseExtensionIn: 9 }
+    const result = check('base_extension', { zone: driveway })
+    expect(result.status).toBe('warn')
+    expect(result.values).toMatchObject({ requiredIn: 10 })
+  })
+
+  // SRW installation guides (common practice): leveling pad about 6 in in front of the block face.
+  it('a wall pad passes at 6 in and fails under 3 in, as common practice', () => {
+    const wall = { kind: 'wall' as const, designBaseDepthIn: 6, baseExtensionIn: 6 }
+    expect(check('base_extension', { zone: wall }).status).toBe('pass')
+    const far = check('base_extension', { zone: { ...wall, baseExtensionIn: 2.5 } })
+    expect(far.status).toBe('fail')
+    expect(far.basis).toBe('common practice')
+  })
+
+  it('has no rule for a drainage run and warns when no extension is recorded', () => {
+    expect(check('base_extension', { zone: { kind: 'drainage', designBaseDepthIn: 4, baseExtensionIn: 0 } })).toMatchObject({ status: 'pass', code: 'no_rule' })
+    expect(check('base_extension', { zone: { ...walk, baseExtensionIn: null } }).status).toBe('warn')
+  })
+})
+
+describe('photo before the lift is covered', () => {
+  it('fails a lift with no photo and passes one with a photo', () => {
+    expect(check('photo_before_cover', { hasPhoto: false }).status).toBe('fail')
+    expect(check('photo_before_cover', { hasPhoto: true }).status).toBe('pass')
+    expect(check('photo_before_cover').basis).toBe('common practice')
+  })
+})
+
+describe('all checks of a lift', () => {
+  it('gives the four checks in order, each with a rule and a source, and the worst status', () => {
+    const checks = checkLift(input({ hasPhoto: false }))
+    expect(checks.map(c => c.id)).toEqual(['loose_thickness', 'design_depth', 'base_extension', 'photo_before_cover'])
+    for (const c of checks) expect(c.rule.length && c.source.length).toBeGreaterThan(0)
+    expect(worstStatus(checks)).toBe('fail')
+    expect(worstStatus(checkLift(input({ compactedBeforeIn: 3 })))).toBe('pass')
+  })
+})
