@@ -2,10 +2,7 @@
 // the job-rollup route for the 120-day job against the same SQL run bare, and the foreman's review
 // list at p50 and p95. Figures only: nothing here passes or fails.
 import { randomUUID } from 'node:crypto'
-import { existsSync } from 'node:fs'
-import { resolve } from 'node:path'
 import type { Knex } from 'knex'
-import { root } from '../config'
 import { rollupStatements } from '../../server/utils/rollup-sql'
 import type { DayStatus } from '../../shared/utils/daybook'
 import { freshDatabase, median, percentile, signIn, startServer, timed } from './harness'
@@ -80,17 +77,6 @@ async function seedDays(job: { id: string, zoneId: string }, crew: string[], sta
   await out.add('material_estimates', { id: randomUUID(), job_id: job.id, material: '3/4 in crushed stone', quantity: 60, unit: 'ton' })
 }
 
-// The foreman's review list: the day sheets waiting across their jobs, newest first, and the count
-// per job. Used when this branch has no review route, as a stand-in for it.
-async function reviewStandIn(db: Knex, organisationId: string, foremanId: string): Promise<void> {
-  await Promise.all([
-    db.raw(`SELECT d.id, d.job_id, j.name, d.work_date, d.status FROM day_sheets d JOIN jobs j ON j.id = d.job_id
-      WHERE j.organisation_id = ? AND j.foreman_id = ? AND d.review_state = 'waiting' ORDER BY d.work_date DESC, d.id DESC LIMIT 50`, [organisationId, foremanId]),
-    db.raw(`SELECT d.job_id, COUNT(*) AS waiting FROM day_sheets d JOIN jobs j ON j.id = d.job_id
-      WHERE j.organisation_id = ? AND j.foreman_id = ? AND d.review_state = 'waiting' GROUP BY d.job_id`, [organisationId, foremanId]),
-  ])
-}
-
 async function main(): Promise<void> {
   const db = await freshDatabase(database)
   const seeding = await timed(async () => {
@@ -144,20 +130,16 @@ async function main(): Promise<void> {
     console.log(`rollup: route ${serverMedian.toFixed(2)} ms in the server (session, access check and SQL), ${median(routeMs).toFixed(2)} ms seen by the client over HTTP; bare SQL ${median(bareMs).toFixed(2)} ms; medians of ${rounds}`)
     console.log(`rollup: client round trip / bare SQL = ${(median(routeMs) / median(bareMs)).toFixed(3)} (the HTTP hop included, for comparison)`)
 
-    const reviewRoute = existsSync(resolve(root, 'server', 'api', 'review', 'index.get.ts'))
-    const review = reviewRoute
-      ? async () => {
-        const response = await fetch(`${server.url}/api/review`, { headers: { cookie } })
-        if (response.status !== 200) throw new Error(`review route answered ${response.status}`)
-        await response.arrayBuffer()
-      }
-      : () => reviewStandIn(db, company.organisationId, company.foremanId)
+    // The foreman's review list, seen from the client: the waiting days across all their jobs, newest first.
+    const review = async () => {
+      const response = await fetch(`${server.url}/api/review`, { headers: { cookie } })
+      if (response.status !== 200) throw new Error(`review route answered ${response.status}`)
+      await response.arrayBuffer()
+    }
     for (let i = 0; i < 10; i++) await review()
     const reviewMs: number[] = []
     for (let r = 0; r < reviewRounds; r++) reviewMs.push((await timed(review)).ms)
-    console.log(reviewRoute
-      ? `review list: GET /api/review for a foreman of ${jobCount + 1} jobs`
-      : `review list: NO /api/review ROUTE ON THIS BRANCH: measured a stand-in SQL query (waiting days across the foreman's ${jobCount + 1} jobs, newest first, 50 a page, with counts per job), not a route`)
+    console.log(`review list: GET /api/review for a foreman of ${jobCount + 1} jobs, over HTTP`)
     console.log(`review list: p50 ${percentile(reviewMs, 50).toFixed(2)} ms, p95 ${percentile(reviewMs, 95).toFixed(2)} ms over ${reviewRounds} rounds`)
     console.log(`RESULT rollup_ratio=${(serverMedian / median(bareMs)).toFixed(3)} review_p95_ms=${percentile(reviewMs, 95).toFixed(2)}`)
   }

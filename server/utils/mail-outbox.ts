@@ -4,6 +4,7 @@
 import type { OutgoingMail } from './mail'
 import { dayReportFacts, dayStatusLabels, loadDayReport, type DayReport } from './day-report'
 import { calendarDateIn } from '../../shared/utils/work-calendar'
+import { retryDelayMs } from './mail-retry'
 
 /** Sheets changed longer ago than this are not reported when the outbox first meets them (a new install, a restored backup). */
 const reportLookbackDays = 3
@@ -49,11 +50,6 @@ function safeDateIn(timeZone: string, now: Date) {
 }
 
 interface OutboxRow { id: number, kind: 'day_report' | 'rain_out', audience: 'office' | 'homeowner', day_sheet_id: string, attempts: number, next_attempt_at: Date }
-
-/** Wait before the next try: the interval, doubled at each failure, at most an hour. */
-export function retryDelayMs(attempts: number, intervalSeconds: number): number {
-  return Math.min(3_600_000, Math.max(1, intervalSeconds) * 1000 * 2 ** Math.max(0, attempts - 1))
-}
 
 /** Sends the due messages one by one; each failure is recorded on its row and tried again later. */
 export async function sendDueMail(settings: OutboxSettings, now = new Date()): Promise<void> {

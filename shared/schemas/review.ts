@@ -1,5 +1,6 @@
 // The foreman's review: approving a day, flagging one of its records, resolving a flag, reopening a day.
 import { z } from 'zod'
+import type { LiftCheck } from '../utils/lift-checks'
 
 const id = z.uuid('Not a valid id')
 const note = (max: number) => z.string().trim().max(max, `At most ${max} characters`)
@@ -72,7 +73,7 @@ export interface ReviewDay {
   job: { id: string, name: string, siteAddress: string, customerName: string }
   crew: { id: string, crewMemberId: string, name: string, hours: number }[]
   drops: { id: string, material: string, quantity: number, unit: string, stagedAt: string | null, ticketNumber: string | null }[]
-  lifts: { id: string, zoneId: string, zoneName: string, zoneKind: string, designBaseDepthIn: number | null, baseExtensionIn: number | null, sequence: number, material: string, looseIn: number, compactedIn: number, passes: number, compactorClass: string, moistureNote: string | null }[]
+  lifts: { id: string, zoneId: string, zoneName: string, zoneKind: string, designBaseDepthIn: number | null, baseExtensionIn: number | null, sequence: number, material: string, looseIn: number, compactedIn: number, passes: number, compactorClass: string, moistureNote: string | null, checks: LiftCheck[] }[]
   photos: ReviewPhotoView[]
   notes: ReviewNoteView[]
 }

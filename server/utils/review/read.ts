@@ -1,6 +1,7 @@
 // What the foreman reads at night: the days waiting across their jobs, and one day in full.
 import type { Member } from '../members'
 import type { ReviewDay, ReviewList, ReviewListDay, ReviewNoteView } from '../../../shared/schemas/review'
+import { liftChecksFor } from '../lift-review'
 
 /** Days still to look at: never reviewed, reopened, or carrying a flag. */
 const openStates = ['waiting', 'reopened', 'flagged']
@@ -52,7 +53,7 @@ export async function requireReviewableDay(member: Member, dayId: string, db = u
 export async function reviewDayFor(member: Member, dayId: string): Promise<ReviewDay> {
   const db = useDb()
   const s = await requireReviewableDay(member, dayId)
-  const [crew, drops, lifts, photos, notes, reviewer, author] = await Promise.all([
+  const [crew, drops, lifts, photos, notes, reviewer, author, checked] = await Promise.all([
     db('time_entries as t').join('crew_members as c', 'c.id', 't.crew_member_id').where('t.day_sheet_id', dayId).orderBy('c.name')
       .select('t.id', 't.crew_member_id as crewMemberId', 'c.name', 't.hours'),
     db('material_drops').where('day_sheet_id', dayId).orderBy('created_at')
@@ -66,7 +67,10 @@ export async function reviewDayFor(member: Member, dayId: string): Promise<Revie
       .select('n.id', 'n.kind', 'n.subject_type as subjectType', 'n.subject_id as subjectId', 'n.parent_id as parentId', 'n.reason', 'n.body', 'a.name as authorName', 'n.created_at as createdAt', 'n.resolved_at as resolvedAt', 'r.name as resolvedByName'),
     s.reviewed_by ? db('users').where('id', s.reviewed_by).first('name') : undefined,
     s.author_id ? db('users').where('id', s.author_id).first('name') : undefined,
+    // The lift checks re-computed on the server: the same rules the phone showed as the lift was logged.
+    liftChecksFor([dayId]),
   ])
+  const checksOf = new Map(checked.map(c => [c.liftId, c.checks]))
   const photoViews = photos.map((p: ReviewDay['photos'][number]) => ({ ...p, takenAt: iso(p.takenAt), ...photoUrls(p.id) }))
   return {
     day: {
@@ -77,7 +81,7 @@ export async function reviewDayFor(member: Member, dayId: string): Promise<Revie
     job: { id: s.job_id, name: s.job_name, siteAddress: s.site_address, customerName: s.customer_name },
     crew,
     drops,
-    lifts,
+    lifts: lifts.map((l: Omit<ReviewDay['lifts'][number], 'checks'>) => ({ ...l, checks: checksOf.get(l.id) ?? [] })),
     photos: photoViews.filter((p: ReviewDay['photos'][number]) => p.subjectType !== 'review_note'),
     notes: notes.map((n: ReviewNoteView): ReviewNoteView => ({
       ...n, createdAt: iso(n.createdAt) ?? '', resolvedAt: iso(n.resolvedAt),

@@ -1,6 +1,6 @@
 // How long a failed day report or rain-out notice waits before the outbox tries it again.
 import { describe, expect, it } from 'vitest'
-import { retryDelayMs } from '../../server/utils/mail-outbox'
+import { retryDelayMs } from '../../server/utils/mail-retry'
 
 describe('retryDelayMs', () => {
   it('waits one timer interval after the first failure and doubles after each further one', () => {
