@@ -42,7 +42,8 @@ export const useOutboxStore = defineStore('outbox', () => {
 
   async function sendNow(): Promise<void> {
     await use().run()
-    if (status.value === 'idle') await useDaybookStore().refreshFromServer()
+    // The engine's own status: the store's copy is refreshed 50 ms later and would still say 'sending'.
+    if (use().status === 'idle') await useDaybookStore().refreshFromServer()
   }
 
   /** Starts the triggers once per page load. */
