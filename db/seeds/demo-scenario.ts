@@ -64,7 +64,7 @@ export interface DemoJob {
 }
 
 const wallLift = (zone: string, photo?: string): DemoLift =>
-  ({ zone, material: '3/4 in crushed stone base', looseIn: 4, compactedIn: 3, passes: 4, compactor: 'plate_medium', photo })
+  ({ zone, material: '3/4 in crushed stone base', looseIn: 4, compactedIn: 3, passes: 4, compactor: 'plate-medium', photo })
 
 export const jobs: DemoJob[] = [
   {
@@ -128,8 +128,8 @@ export const jobs: DemoJob[] = [
       { offset: 8, status: 'full_day', crew: ['marisol', 'jonah', 'keiko', 'abel', 'rory'], weather: 'Clear', tempF: 62, review: 'flagged',
         workDone: 'Step base: two lifts compacted.',
         lifts: [
-          { zone: 'steps', material: '3/4 in crushed stone base', looseIn: 4, compactedIn: 3, passes: 4, compactor: 'plate_medium', photo: 'lift' },
-          { zone: 'steps', material: '3/4 in crushed stone base', looseIn: 5, compactedIn: 3.5, passes: 3, compactor: 'plate_light' },
+          { zone: 'steps', material: '3/4 in crushed stone base', looseIn: 4, compactedIn: 3, passes: 4, compactor: 'plate-medium', photo: 'lift' },
+          { zone: 'steps', material: '3/4 in crushed stone base', looseIn: 5, compactedIn: 3.5, passes: 3, compactor: 'plate-light' },
         ],
         flag: { lift: 1, reason: 'photo_missing', body: 'No photo of the second step lift before it was covered, and 5 in loose is thick for the light plate. Probe it and send a photo.' } },
       { offset: 9, status: 'no_work', crew: [], weather: 'Clear', tempF: 64, review: 'waiting',
@@ -154,8 +154,8 @@ export const jobs: DemoJob[] = [
         drops: [{ material: '3/4 in crushed stone base', quantity: 6, unit: 'ton', stagedAt: 'Street parking strip', ticket: 'QH-29811' }] },
       { offset: 1, status: 'full_day', crew: ['teddy', 'luis', 'benny'], weather: 'Clear', tempF: 72, review: 'approved', workDone: 'Base in two lifts, edge restraint.',
         lifts: [
-          { zone: 'walk', material: '3/4 in crushed stone base', looseIn: 2.75, compactedIn: 2, passes: 3, compactor: 'plate_light', photo: 'lift' },
-          { zone: 'walk', material: '3/4 in crushed stone base', looseIn: 2.75, compactedIn: 2, passes: 3, compactor: 'plate_light', photo: 'lift' },
+          { zone: 'walk', material: '3/4 in crushed stone base', looseIn: 2.75, compactedIn: 2, passes: 3, compactor: 'plate-light', photo: 'lift' },
+          { zone: 'walk', material: '3/4 in crushed stone base', looseIn: 2.75, compactedIn: 2, passes: 3, compactor: 'plate-light', photo: 'lift' },
         ] },
       { offset: 2, status: 'full_day', crew: ['teddy', 'luis', 'benny'], weather: 'Clear', tempF: 71, review: 'approved', workDone: 'Bedding screeded, pavers laid.' },
       { offset: 3, status: 'full_day', crew: ['teddy', 'luis', 'benny'], weather: 'Hot', tempF: 88, review: 'approved', workDone: 'Cuts along the border (wet saw), soldier course.' },
