@@ -5,7 +5,7 @@ import { join, relative } from 'node:path'
 import { spawnSync } from 'node:child_process'
 import { root } from './config'
 
-const inputs = ['app', 'server', 'shared', 'public', 'nuxt.config.ts', 'tailwind.config.ts', 'knexfile.ts', 'package-lock.json']
+const inputs = ['app', 'server', 'shared', 'public', 'i18n', 'db/connection.ts', 'nuxt.config.ts', 'tailwind.config.ts', 'knexfile.ts', 'package-lock.json']
 const stampFile = join(root, '.output', 'tamp-build.json')
 
 function* files(path: string): Generator<string> {
