@@ -1,9 +1,8 @@
 // One day on one job as the office reads it: the day report e-mail, the printable day report and the
 // job's list of days all start from here.
 import type { Member } from './members'
-import type { DayStatus, ReviewState } from '../../shared/utils/daybook'
+import { dayStatusLabels, type DayStatus, type ReviewState } from '../../shared/utils/daybook'
 
-export const dayStatusLabels: Record<DayStatus, string> = { full_day: 'Full day', half_day: 'Half day', rain_out: 'Rain-out', no_work: 'No work' }
 
 export interface DayReport {
   job: { id: string, name: string, customerName: string, siteAddress: string, organisationId: string, foremanId: string | null, customerEmail: string | null, homeownerUpdates: boolean }

@@ -1,7 +1,7 @@
 // A job's days and photos for the office's job page, and the exports built on them.
 import type { Member } from './members'
 import type { DayStatus, ReviewState } from '../../shared/utils/daybook'
-import { dayStatusLabels } from './day-report'
+import { dayStatusLabels } from '../../shared/utils/daybook'
 
 export interface JobDayRow {
   id: string

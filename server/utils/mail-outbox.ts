@@ -2,7 +2,8 @@
 // of times (the table's unique key drops repeats) and sent by a timer (server/plugins/mail-outbox.ts),
 // never inside a request, so a relay that is down delays a message but never a sync or a save.
 import type { OutgoingMail } from './mail'
-import { dayReportFacts, dayStatusLabels, loadDayReport, type DayReport } from './day-report'
+import { dayReportFacts, loadDayReport, type DayReport } from './day-report'
+import { dayStatusLabels } from '../../shared/utils/daybook'
 import { calendarDateIn } from '../../shared/utils/work-calendar'
 import { retryDelayMs } from './mail-retry'
 

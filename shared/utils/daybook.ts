@@ -12,6 +12,9 @@ export type ZoneKind = (typeof zoneKinds)[number]
 export const dayStatuses = ['full_day', 'half_day', 'rain_out', 'no_work'] as const
 export type DayStatus = (typeof dayStatuses)[number]
 
+/** The office's words for a day's status (English screens, reports, CSV and e-mail; the phone translates its own). */
+export const dayStatusLabels: Record<DayStatus, string> = { full_day: 'Full day', half_day: 'Half day', rain_out: 'Rain-out', no_work: 'No work' }
+
 export const reviewStates = ['waiting', 'approved', 'flagged', 'reopened'] as const
 export type ReviewState = (typeof reviewStates)[number]
 
