@@ -3,7 +3,7 @@
 import type { Knex } from 'knex'
 import type { SyncChange, SyncResult } from '../../../shared/schemas/daybook'
 import type { Member } from '../members'
-import { loadContext, type BatchContext } from './context'
+import { loadContext, type BatchContext, type BatchProbe } from './context'
 import { fromRow, kindMaps, sameContent, toColumns } from './kinds'
 
 type Row = Record<string, unknown> & { id: string }
@@ -82,8 +82,8 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   return { result: { ...base, status: 'applied', revision: 1 }, write: { kind, id: record.id, columns, revision: 1, op: 'insert' } }
 }
 
-export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[], batchId: string): Promise<SyncResult[]> {
-  const ctx = await loadContext(trx, member, changes)
+export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[], probe: BatchProbe, batchId: string): Promise<SyncResult[]> {
+  const ctx = await loadContext(trx, probe)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
   const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member))

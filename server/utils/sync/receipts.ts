@@ -19,23 +19,37 @@ async function storedAnswer<T>(db: Knex | Knex.Transaction, userId: string, key:
   return { statusCode: receipt.status_code, body: typeof receipt.response === 'string' ? JSON.parse(receipt.response) : receipt.response }
 }
 
-export async function oncePerKey<T>(userId: string, key: string, hash: string, work: (trx: Knex.Transaction) => Promise<T>): Promise<StoredAnswer<T> & { replayed: boolean }> {
+/** How often a batch is decided again after losing a race for a record's key to another batch. */
+const attempts = 3
+
+/**
+ * Runs `work` once per Idempotency-Key, in one transaction with the receipt. `prepare` (reads that lock
+ * nothing) runs on another pooled connection while the transaction opens, and its answer is handed to
+ * `work`; both run again when another batch inserted one of the same records or natural keys meanwhile.
+ */
+export async function oncePerKey<T, P>(userId: string, key: string, hash: string, prepare: () => Promise<P>, work: (trx: Knex.Transaction, prepared: P) => Promise<T>): Promise<StoredAnswer<T> & { replayed: boolean }> {
   // No look-up first: a repeat is rare, and the receipt's primary key catches it when the batch's own
   // receipt is written (the repeat's work is then rolled back and the stored answer returned).
-  try {
-    return await useDb().transaction(async (trx) => {
-      const body = await work(trx)
-      await trx('sync_receipts').insert({ user_id: userId, idempotency_key: key, request_hash: hash, status_code: 200, response: JSON.stringify(body) })
-      return { statusCode: 200, body, replayed: false }
-    })
-  }
-  catch (error) {
-    // A repeat of a request already answered (or arriving at the same moment): answer as the first did.
-    if ((error as { code?: string }).code === 'ER_DUP_ENTRY') {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      const prepared = prepare()
+      // Awaited inside the transaction; a failure before then must not go unhandled.
+      prepared.catch(() => {})
+      return await useDb().transaction(async (trx) => {
+        const body = await work(trx, await prepared)
+        await trx('sync_receipts').insert({ user_id: userId, idempotency_key: key, request_hash: hash, status_code: 200, response: JSON.stringify(body) })
+        return { statusCode: 200, body, replayed: false }
+      })
+    }
+    catch (error) {
+      if ((error as { code?: string }).code !== 'ER_DUP_ENTRY') throw error
+      // A repeat of a request already answered (or arriving at the same moment): answer as the first did.
       const winner = await storedAnswer<T>(useDb(), userId, key, hash)
       if (winner) return { ...winner, replayed: true }
+      // Another batch created one of these records (or took a natural key) after they were looked up:
+      // decide again against what is now on the server.
+      if (attempt >= attempts) throw error
     }
-    throw error
   }
 }
 
