@@ -42,7 +42,10 @@ export async function oncePerKey<T, P>(userId: string, key: string, hash: string
       })
     }
     catch (error) {
-      if ((error as { code?: string }).code !== 'ER_DUP_ENTRY') throw error
+      const code = (error as { code?: string }).code
+      // Chosen as a deadlock's victim, the batch was rolled back whole: it can simply run again.
+      if (code === 'ER_LOCK_DEADLOCK' && attempt < attempts) continue
+      if (code !== 'ER_DUP_ENTRY') throw error
       // A repeat of a request already answered (or arriving at the same moment): answer as the first did.
       const winner = await storedAnswer<T>(useDb(), userId, key, hash)
       if (winner) return { ...winner, replayed: true }
