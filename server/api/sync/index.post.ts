@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const raw = await readRawBody(event, 'utf8') ?? ''
   const { changes } = await readBodyWith(event, syncBatch)
   assertDistinctRecords(changes)
-  const answer = await oncePerKey<SyncAnswer, BatchProbe>(member.userId, key.data, requestHash(raw), () => probeBatch(member, changes), async (trx, probe) => ({ results: await applyChanges(trx, member, changes, probe, randomUUID()) }))
+  const answer = await oncePerKey<SyncAnswer, BatchProbe>(member.userId, key.data, requestHash(raw), () => probeBatch(member, changes), (trx, probe) => applyChanges(trx, member, changes, probe, randomUUID()))
   setResponseStatus(event, answer.statusCode)
   if (answer.replayed) setResponseHeader(event, 'Idempotent-Replayed', 'true')
   return answer.body

@@ -1,7 +1,7 @@
 // Applies one batch of phone changes inside the caller's transaction: decide every change against the
 // server's state, then write with one statement per kind where possible.
 import type { Knex } from 'knex'
-import type { SyncChange, SyncResult } from '../../../shared/schemas/daybook'
+import type { SyncAnswer, SyncChange, SyncResult } from '../../../shared/schemas/daybook'
 import type { Member } from '../members'
 import { loadContext, type BatchContext, type BatchProbe } from './context'
 import { fromRow, kindMaps, sameContent, toColumns } from './kinds'
@@ -82,13 +82,15 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   return { result: { ...base, status: 'applied', revision: 1 }, write: { kind, id: record.id, columns, revision: 1, op: 'insert' } }
 }
 
-export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[], probe: BatchProbe, batchId: string): Promise<SyncResult[]> {
+/** Decides every change of the batch against the locked rows; answers the results and the statements that write them. */
+export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[], probe: BatchProbe, batchId: string): Promise<{ body: SyncAnswer, statements: Knex.QueryBuilder[] }> {
   const ctx = await loadContext(trx, probe)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
   const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member))
   const writes = decisions.flatMap(d => d.write ? [d.write] : [])
   const now = new Date()
+  const statements: Knex.QueryBuilder[] = []
 
   // Inserts in dependency order: day sheets before what hangs on them.
   for (const kind of Object.keys(kindMaps) as SyncChange['kind'][]) {
@@ -103,21 +105,21 @@ export async function applyChanges(trx: Knex.Transaction, member: Member, change
       }
       return { ...w.columns, ...extra, revision: 1, created_at: now, updated_at: now }
     })
-    if (rows.length) await trx(kindMaps[kind].table).insert(rows)
+    if (rows.length) statements.push(trx(kindMaps[kind].table).insert(rows))
   }
   for (const w of writes.filter(w => w.op === 'update')) {
-    await trx(kindMaps[w.kind].table).where({ id: w.id }).update({ ...w.columns, revision: w.revision, updated_at: now })
+    statements.push(trx(kindMaps[w.kind].table).where({ id: w.id }).update({ ...w.columns, revision: w.revision, updated_at: now }))
   }
   for (const kind of Object.keys(kindMaps) as SyncChange['kind'][]) {
     const ids = writes.filter(w => w.kind === kind && w.op === 'delete').map(w => w.id)
-    if (ids.length) await trx(kindMaps[kind].table).whereIn('id', ids).delete()
+    if (ids.length) statements.push(trx(kindMaps[kind].table).whereIn('id', ids).delete())
   }
   // One audit line per batch, listing every record it wrote (a week of a crew is a hundred records).
   if (writes.length) {
-    await trx('audit_log').insert({
+    statements.push(trx('audit_log').insert({
       organisation_id: member.organisationId, actor_id: member.userId, action: 'sync.batch', subject_type: 'sync_batch', subject_id: batchId,
       detail: JSON.stringify({ writes: writes.map(w => ({ kind: w.kind, id: w.id, op: w.op, revision: w.revision })) }), created_at: now,
-    })
+    }))
   }
-  return decisions.map(d => d.result)
+  return { body: { results: decisions.map(d => d.result) }, statements }
 }

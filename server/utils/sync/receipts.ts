@@ -3,6 +3,7 @@
 // answer was lost on the way to the phone is answered again, never applied twice.
 import { createHash } from 'node:crypto'
 import type { Knex } from 'knex'
+import { runInOneTrip, useBatchWriter } from './writer'
 
 export interface StoredAnswer<T> { statusCode: number, body: T }
 
@@ -26,8 +27,10 @@ const attempts = 3
  * Runs `work` once per Idempotency-Key, in one transaction with the receipt. `prepare` (reads that lock
  * nothing) runs on another pooled connection while the transaction opens, and its answer is handed to
  * `work`; both run again when another batch inserted one of the same records or natural keys meanwhile.
+ * `work` decides and answers the statements that write its decisions: they go to the database with the
+ * receipt in one round trip.
  */
-export async function oncePerKey<T, P>(userId: string, key: string, hash: string, prepare: () => Promise<P>, work: (trx: Knex.Transaction, prepared: P) => Promise<T>): Promise<StoredAnswer<T> & { replayed: boolean }> {
+export async function oncePerKey<T, P>(userId: string, key: string, hash: string, prepare: () => Promise<P>, work: (trx: Knex.Transaction, prepared: P) => Promise<{ body: T, statements: Knex.QueryBuilder[] }>): Promise<StoredAnswer<T> & { replayed: boolean }> {
   // No look-up first: a repeat is rare, and the receipt's primary key catches it when the batch's own
   // receipt is written (the repeat's work is then rolled back and the stored answer returned).
   for (let attempt = 1; ; attempt++) {
@@ -35,9 +38,10 @@ export async function oncePerKey<T, P>(userId: string, key: string, hash: string
       const prepared = prepare()
       // Awaited inside the transaction; a failure before then must not go unhandled.
       prepared.catch(() => {})
-      return await useDb().transaction(async (trx) => {
-        const body = await work(trx, await prepared)
-        await trx('sync_receipts').insert({ user_id: userId, idempotency_key: key, request_hash: hash, status_code: 200, response: JSON.stringify(body) })
+      return await useBatchWriter().transaction(async (trx) => {
+        const { body, statements } = await work(trx, await prepared)
+        const receipt = trx('sync_receipts').insert({ user_id: userId, idempotency_key: key, request_hash: hash, status_code: 200, response: JSON.stringify(body) })
+        await runInOneTrip(trx, [...statements, receipt])
         return { statusCode: 200, body, replayed: false }
       })
     }
