@@ -1,4 +1,4 @@
-import type { H3Event } from 'h3'
+import type { H3Event, Session } from 'h3'
 import type { Role } from '../../shared/utils/daybook'
 
 export interface Member {
@@ -25,7 +25,7 @@ export async function requireMember(event: H3Event, roles?: readonly Role[]): Pr
  */
 export async function startRequireMember(event: H3Event, roles?: readonly Role[]): Promise<{ member: Promise<Member> }> {
   const known = event.context.member as Member | undefined
-  const loading = known ? Promise.resolve(known) : loadMember(event, (await requireUserSession(event, { message: 'Sign in to continue' })).user)
+  const loading = known ? Promise.resolve(known) : loadMember(event, await signedInUser(event))
   const member = loading.then((member) => {
     event.context.member = member
     if (roles && !roles.includes(member.role)) {
@@ -48,4 +48,37 @@ async function loadMember(event: H3Event, user: { id: string, organisationId: st
     throw createError({ statusCode: 401, statusMessage: 'Your sign-in has ended; sign in again' })
   }
   return { userId: user.id, organisationId: user.organisationId, membershipId: row.membershipId, role: row.role, name: row.name }
+}
+
+// Unsealing the session cookie takes several WebCrypto calls on every request. An unsealed session is
+// remembered under its exact sealed value (which only this server can produce), and every use checks
+// again the expiries that unsealing checks: the session's age against maxAge, and the seal's own.
+const unsealed = new Map<string, Session & { validUntil: number }>()
+const unsealedLimit = 1000
+
+async function signedInUser(event: H3Event) {
+  const { name = 'nuxt-session', maxAge } = useRuntimeConfig().session as { name?: string, maxAge?: number }
+  // h3 reads a session header before the cookie: such requests always take the full path.
+  const sealed = getRequestHeader(event, `x-${name.toLowerCase()}-session`) === undefined ? parseCookies(event)[name] : undefined
+  const known = sealed ? unsealed.get(sealed) : undefined
+  if (sealed && known && Date.now() >= known.validUntil) unsealed.delete(sealed)
+  else if (known) {
+    // Where nuxt-auth-utils (through h3) looks first for this request's session.
+    event.context.sessions ??= Object.create(null) as Record<string, Session>
+    event.context.sessions[name] = { id: known.id, createdAt: known.createdAt, data: structuredClone(known.data) }
+  }
+  const { user } = await requireUserSession(event, { message: 'Sign in to continue' })
+  const session = event.context.sessions?.[name]
+  if (sealed && !known && session) remember(sealed, session, maxAge)
+  return user
+}
+
+function remember(sealed: string, session: Session, maxAgeSeconds: number | undefined): void {
+  // An iron seal reads Fe26.2*id*salt*iv*data*expiry*salt*mac; h3 seals with an expiry when it has a maxAge.
+  const expiry = sealed.split('*')[5]
+  const sealExpiry = expiry ? Number(expiry) : Number.POSITIVE_INFINITY
+  if (Number.isNaN(sealExpiry)) return
+  const validUntil = Math.min(sealExpiry, maxAgeSeconds ? session.createdAt + maxAgeSeconds * 1000 : Number.POSITIVE_INFINITY)
+  if (unsealed.size >= unsealedLimit) unsealed.delete(unsealed.keys().next().value as string)
+  unsealed.set(sealed, { id: session.id, createdAt: session.createdAt, data: structuredClone(session.data), validUntil })
 }
