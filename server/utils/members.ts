@@ -9,6 +9,9 @@ export interface Member {
   name: string
 }
 
+/** Who the session cookie says is signed in, before their membership is confirmed. */
+export type SignedIn = Pick<Member, 'userId' | 'organisationId'>
+
 /**
  * The signed-in member, re-read from the database on every request so that a deactivation or a role
  * change takes effect at once; 401 without a live membership, 403 when the role is not among `roles`.
@@ -23,9 +26,10 @@ export async function requireMember(event: H3Event, roles?: readonly Role[]): Pr
  * unawaited. Awaiting `member` gives what requireMember gives, and the route must await it before it
  * answers anything else.
  */
-export async function startRequireMember(event: H3Event, roles?: readonly Role[]): Promise<{ member: Promise<Member> }> {
+export async function startRequireMember(event: H3Event, roles?: readonly Role[]): Promise<{ member: Promise<Member>, signedIn: SignedIn }> {
   const known = event.context.member as Member | undefined
-  const loading = known ? Promise.resolve(known) : loadMember(event, await signedInUser(event))
+  const signedIn: SignedIn = known ?? await signedInUser(event)
+  const loading = known ? Promise.resolve(known) : loadMember(event, signedIn)
   const member = loading.then((member) => {
     event.context.member = member
     if (roles && !roles.includes(member.role)) {
@@ -35,19 +39,19 @@ export async function startRequireMember(event: H3Event, roles?: readonly Role[]
   })
   // Awaited by the caller, possibly after other work: a refusal must not count as unhandled meanwhile.
   member.catch(() => {})
-  return { member }
+  return { member, signedIn: { userId: signedIn.userId, organisationId: signedIn.organisationId } }
 }
 
-async function loadMember(event: H3Event, user: { id: string, organisationId: string }): Promise<Member> {
+async function loadMember(event: H3Event, user: SignedIn): Promise<Member> {
   const row = await useDb()('memberships as m')
     .join('users as u', 'u.id', 'm.user_id')
-    .where({ 'm.user_id': user.id, 'm.organisation_id': user.organisationId, 'm.active': true })
+    .where({ 'm.user_id': user.userId, 'm.organisation_id': user.organisationId, 'm.active': true })
     .first('m.id as membershipId', 'm.role', 'u.name')
   if (!row) {
     await clearUserSession(event)
     throw createError({ statusCode: 401, statusMessage: 'Your sign-in has ended; sign in again' })
   }
-  return { userId: user.id, organisationId: user.organisationId, membershipId: row.membershipId, role: row.role, name: row.name }
+  return { userId: user.userId, organisationId: user.organisationId, membershipId: row.membershipId, role: row.role, name: row.name }
 }
 
 // Unsealing the session cookie takes several WebCrypto calls on every request. An unsealed session is
@@ -56,7 +60,7 @@ async function loadMember(event: H3Event, user: { id: string, organisationId: st
 const unsealed = new Map<string, Session & { validUntil: number }>()
 const unsealedLimit = 1000
 
-async function signedInUser(event: H3Event) {
+async function signedInUser(event: H3Event): Promise<SignedIn> {
   const { name = 'nuxt-session', maxAge } = useRuntimeConfig().session as { name?: string, maxAge?: number }
   // h3 reads a session header before the cookie: such requests always take the full path.
   const sealed = getRequestHeader(event, `x-${name.toLowerCase()}-session`) === undefined ? parseCookies(event)[name] : undefined
@@ -70,7 +74,7 @@ async function signedInUser(event: H3Event) {
   const { user } = await requireUserSession(event, { message: 'Sign in to continue' })
   const session = event.context.sessions?.[name]
   if (sealed && !known && session) remember(sealed, session, maxAge)
-  return user
+  return { userId: user.id, organisationId: user.organisationId }
 }
 
 function remember(sealed: string, session: Session, maxAgeSeconds: number | undefined): void {

@@ -84,7 +84,7 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
 
 /** Decides every change of the batch against the locked rows; answers the results and the statements that write them. */
 export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[], probe: BatchProbe, batchId: string): Promise<{ body: SyncAnswer, statements: Knex.QueryBuilder[] }> {
-  const ctx = await loadContext(trx, probe)
+  const ctx = await loadContext(trx, probe, member.role)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
   const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member))

@@ -8,7 +8,8 @@
 // batch after the probe hits a unique key when inserted, and the whole batch is decided again (receipts.ts).
 import type { Knex } from 'knex'
 import type { RecordKind, SyncChange } from '../../../shared/schemas/daybook'
-import type { Member } from '../members'
+import type { Member, SignedIn } from '../members'
+import { roles, type Role } from '../../../shared/utils/daybook'
 import { kindMaps } from './kinds'
 
 type Row = Record<string, unknown> & { id: string }
@@ -30,7 +31,8 @@ export interface BatchProbe {
   /** Day sheets on the server that entries of the batch join (not sheets of the batch itself). */
   parentSheets: Set<string>
   naturalKeys: Map<string, string>
-  visibleJobs: Set<string>
+  /** The batch's jobs each role would see (the probe runs before the member's role is confirmed). */
+  visibleJobs: Record<Role, Set<string>>
   zones: Map<string, Row>
   crew: Set<string>
   nextLiftSequence: Map<string, number>
@@ -48,7 +50,7 @@ function parentSheetIds(changes: SyncChange[]): string[] {
 interface ProbeRow { k: string, id: string, a: string | number | null, b: string | number | null, c: string | null }
 
 /** One UNION query; every branch answers (k, id, a, b, c). */
-export async function probeBatch(member: Member, changes: SyncChange[]): Promise<BatchProbe> {
+export async function probeBatch(signedIn: SignedIn, changes: SyncChange[]): Promise<BatchProbe> {
   const db = useDb()
   // Columns are named, or raw expressions that already carry their alias.
   const branch = (k: string, table: string, ...columns: (string | Knex.Raw)[]) =>
@@ -81,13 +83,16 @@ export async function probeBatch(member: Member, changes: SyncChange[]): Promise
   const parents = parentSheetIds(changes)
   if (parents.length) branches.push(branch('parent', 'day_sheets', 'job_id').whereIn('id', parents))
   const crewIds = unique(entries.map(c => c.record.crewMemberId))
-  if (crewIds.length) branches.push(branch('crew', 'crew_members').whereIn('id', crewIds).where('organisation_id', member.organisationId))
+  if (crewIds.length) branches.push(branch('crew', 'crew_members').whereIn('id', crewIds).where('organisation_id', signedIn.organisationId))
   const zoneIds = unique(ofKind(changes, 'lift').map(c => c.record.zoneId))
   if (zoneIds.length) branches.push(branch('zone_of_lift', 'zones', 'job_id', db.raw('(SELECT MAX(l.sequence) FROM lifts AS l WHERE l.zone_id = zones.id) AS b')).whereIn('id', zoneIds))
   // The jobs the batch names, directly or through the days its entries join.
   const jobIds = unique(changes.map(c => (c.record as { jobId?: string }).jobId))
-  if (jobIds.length || parents.length) {
-    branches.push(visibleJobs(member).select(db.raw('? AS k', ['job']), 'jobs.id AS id', db.raw('NULL AS a'), db.raw('NULL AS b'), db.raw('NULL AS c')).andWhere((q) => {
+  // One branch per role, from the same rule as every other route (visibleJobs reads only the organisation,
+  // the user and the role); the member's confirmed role picks one in loadContext.
+  for (const role of jobIds.length || parents.length ? roles : []) {
+    const as: Member = { ...signedIn, role, membershipId: '', name: '' }
+    branches.push(visibleJobs(as).select(db.raw('? AS k', [`job:${role}`]), 'jobs.id AS id', db.raw('NULL AS a'), db.raw('NULL AS b'), db.raw('NULL AS c')).andWhere((q) => {
       q.whereIn('jobs.id', jobIds)
       if (parents.length) q.orWhereIn('jobs.id', db('day_sheets').whereIn('id', parents).select('job_id'))
     }))
@@ -100,7 +105,7 @@ export async function probeBatch(member: Member, changes: SyncChange[]): Promise
     found: Object.fromEntries(kinds.map(kind => [kind, new Set<string>()])) as BatchProbe['found'],
     parentSheets: new Set(),
     naturalKeys: new Map(),
-    visibleJobs: new Set(),
+    visibleJobs: Object.fromEntries(roles.map(role => [role, new Set<string>()])) as BatchProbe['visibleJobs'],
     zones: new Map(),
     crew: new Set(),
     nextLiftSequence: new Map(),
@@ -109,7 +114,7 @@ export async function probeBatch(member: Member, changes: SyncChange[]): Promise
   for (const row of rows) {
     if (row.k === 'parent') probe.parentSheets.add(row.id)
     else if (row.k === 'crew') probe.crew.add(row.id)
-    else if (row.k === 'job') probe.visibleJobs.add(row.id)
+    else if (row.k.startsWith('job:')) probe.visibleJobs[row.k.slice(4) as Role].add(row.id)
     else if (row.k === 'zone_of_lift') {
       probe.zones.set(row.id, { id: row.id, job_id: row.a })
       probe.nextLiftSequence.set(row.id, Number(row.b ?? 0) + 1)
@@ -125,7 +130,7 @@ export async function probeBatch(member: Member, changes: SyncChange[]): Promise
 }
 
 /** The decisions' context: the probe, with every row that exists read again and locked in the batch's transaction. */
-export async function loadContext(trx: Knex.Transaction, probe: BatchProbe): Promise<BatchContext> {
+export async function loadContext(trx: Knex.Transaction, probe: BatchProbe, role: Role): Promise<BatchContext> {
   const existing = {} as BatchContext['existing']
   const sheets = new Map<string, Row>()
   for (const kind of kinds) {
@@ -134,5 +139,5 @@ export async function loadContext(trx: Knex.Transaction, probe: BatchProbe): Pro
     existing[kind] = new Map(rows.filter(r => probe.found[kind].has(r.id)).map(r => [r.id, r]))
     if (kind === 'day_sheet') for (const row of rows) sheets.set(row.id, row)
   }
-  return { existing, sheets, visibleJobs: probe.visibleJobs, zones: probe.zones, crew: probe.crew, naturalKeys: probe.naturalKeys, nextLiftSequence: probe.nextLiftSequence }
+  return { existing, sheets, visibleJobs: probe.visibleJobs[role], zones: probe.zones, crew: probe.crew, naturalKeys: probe.naturalKeys, nextLiftSequence: probe.nextLiftSequence }
 }
