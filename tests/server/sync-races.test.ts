@@ -134,3 +134,29 @@ describe('entries added to a day already on the server', () => {
     expect(await count('material_drops', { id: drop.record.id })).toBe(0)
   })
 })
+
+describe('who sends the batch, checked while its context is read', () => {
+  it('stores nothing from a crew lead deactivated since signing in, and asks them to sign in again', async () => {
+    const other = await createCompany('Deactivated Pavers')
+    const theirs = await addZoneAndCrew(other.organisationId, other.jobId)
+    const cookie = await signIn(other.lead.email)
+    await testDb()('memberships').where({ id: other.lead.membershipId }).update({ active: false })
+    const day = dayWithWork(other.jobId, theirs.zoneId, theirs.crew, '2026-12-14')
+    const { response } = await sync(cookie, day.changes)
+
+    expect(response.status).toBe(401)
+    expect(await count('day_sheets', { id: day.sheetId })).toBe(0)
+    expect(await count('time_entries', { day_sheet_id: day.sheetId })).toBe(0)
+  })
+
+  it('answers "No such job" to a foreman for a job of another foreman, while its own foreman may write it', async () => {
+    const otherForeman = await signIn(company.otherForeman.email)
+    const day = dayWithWork(company.jobId, zoneId, crew, '2026-12-15')
+    const refused = await sync(otherForeman, day.changes.slice(0, 1))
+    expect(refused.body.results[0]).toMatchObject({ status: 'rejected', message: 'No such job' })
+    expect(await count('day_sheets', { id: day.sheetId })).toBe(0)
+
+    const accepted = await sync(foreman, day.changes.slice(0, 1))
+    expect(accepted.body.results[0]).toMatchObject({ status: 'applied' })
+  })
+})
