@@ -5,6 +5,7 @@ import type { SyncAnswer, SyncChange, SyncResult } from '../../../shared/schemas
 import type { Member } from '../members'
 import { loadContext, type BatchContext, type BatchProbe } from './context'
 import { fromRow, kindMaps, sameContent, toColumns } from './kinds'
+import type { BatchTransaction } from './writer'
 
 type Row = Record<string, unknown> & { id: string }
 type Write = { kind: SyncChange['kind'], id: string, columns: Record<string, unknown>, revision: number, op: 'insert' | 'update' | 'delete' }
@@ -83,8 +84,8 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
 }
 
 /** Decides every change of the batch against the locked rows; answers the results and the statements that write them. */
-export async function applyChanges(trx: Knex.Transaction, member: Member, changes: SyncChange[], probe: BatchProbe, batchId: string): Promise<{ body: SyncAnswer, statements: Knex.QueryBuilder[] }> {
-  const ctx = await loadContext(trx, probe, member.role)
+export async function applyChanges(tx: BatchTransaction, member: Member, changes: SyncChange[], probe: BatchProbe, batchId: string): Promise<{ body: SyncAnswer, statements: Knex.QueryBuilder[] }> {
+  const ctx = await loadContext(tx, probe, member.role)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
   const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member))
@@ -105,18 +106,18 @@ export async function applyChanges(trx: Knex.Transaction, member: Member, change
       }
       return { ...w.columns, ...extra, revision: 1, created_at: now, updated_at: now }
     })
-    if (rows.length) statements.push(trx(kindMaps[kind].table).insert(rows))
+    if (rows.length) statements.push(tx.knex(kindMaps[kind].table).insert(rows))
   }
   for (const w of writes.filter(w => w.op === 'update')) {
-    statements.push(trx(kindMaps[w.kind].table).where({ id: w.id }).update({ ...w.columns, revision: w.revision, updated_at: now }))
+    statements.push(tx.knex(kindMaps[w.kind].table).where({ id: w.id }).update({ ...w.columns, revision: w.revision, updated_at: now }))
   }
   for (const kind of Object.keys(kindMaps) as SyncChange['kind'][]) {
     const ids = writes.filter(w => w.kind === kind && w.op === 'delete').map(w => w.id)
-    if (ids.length) statements.push(trx(kindMaps[kind].table).whereIn('id', ids).delete())
+    if (ids.length) statements.push(tx.knex(kindMaps[kind].table).whereIn('id', ids).delete())
   }
   // One audit line per batch, listing every record it wrote (a week of a crew is a hundred records).
   if (writes.length) {
-    statements.push(trx('audit_log').insert({
+    statements.push(tx.knex('audit_log').insert({
       organisation_id: member.organisationId, actor_id: member.userId, action: 'sync.batch', subject_type: 'sync_batch', subject_id: batchId,
       detail: JSON.stringify({ writes: writes.map(w => ({ kind: w.kind, id: w.id, op: w.op, revision: w.revision })) }), created_at: now,
     }))

@@ -11,6 +11,7 @@ import type { RecordKind, SyncChange } from '../../../shared/schemas/daybook'
 import type { Member, SignedIn } from '../members'
 import { roles, type Role } from '../../../shared/utils/daybook'
 import { kindMaps } from './kinds'
+import type { BatchTransaction } from './writer'
 
 type Row = Record<string, unknown> & { id: string }
 
@@ -129,13 +130,17 @@ export async function probeBatch(signedIn: SignedIn, changes: SyncChange[]): Pro
   return probe
 }
 
-/** The decisions' context: the probe, with every row that exists read again and locked in the batch's transaction. */
-export async function loadContext(trx: Knex.Transaction, probe: BatchProbe, role: Role): Promise<BatchContext> {
+/** The decisions' context: the probe, with every row that exists read again and locked in the batch's transaction (one round trip). */
+export async function loadContext(tx: BatchTransaction, probe: BatchProbe, role: Role): Promise<BatchContext> {
+  const locking = kinds.flatMap((kind) => {
+    const ids = kind === 'day_sheet' ? [...probe.found.day_sheet, ...probe.parentSheets] : [...probe.found[kind]]
+    return ids.length ? [{ kind, query: tx.knex(kindMaps[kind].table).whereIn('id', ids).forUpdate() }] : []
+  })
+  const locked = locking.length ? await tx.read(locking.map(l => l.query)) : []
   const existing = {} as BatchContext['existing']
   const sheets = new Map<string, Row>()
   for (const kind of kinds) {
-    const ids = kind === 'day_sheet' ? [...probe.found.day_sheet, ...probe.parentSheets] : [...probe.found[kind]]
-    const rows: Row[] = ids.length ? await trx(kindMaps[kind].table).whereIn('id', ids).forUpdate() : []
+    const rows = locked[locking.findIndex(l => l.kind === kind)] ?? []
     existing[kind] = new Map(rows.filter(r => probe.found[kind].has(r.id)).map(r => [r.id, r]))
     if (kind === 'day_sheet') for (const row of rows) sheets.set(row.id, row)
   }

@@ -3,7 +3,7 @@
 // answer was lost on the way to the phone is answered again, never applied twice.
 import { createHash } from 'node:crypto'
 import type { Knex } from 'knex'
-import { runInOneTrip, useBatchWriter } from './writer'
+import { inBatchTransaction, type BatchTransaction } from './writer'
 
 export interface StoredAnswer<T> { statusCode: number, body: T }
 
@@ -30,7 +30,7 @@ const attempts = 3
  * `work` decides and answers the statements that write its decisions: they go to the database with the
  * receipt in one round trip.
  */
-export async function oncePerKey<T, P>(userId: string, key: string, hash: string, prepare: () => Promise<P>, work: (trx: Knex.Transaction, prepared: P) => Promise<{ body: T, statements: Knex.QueryBuilder[] }>): Promise<StoredAnswer<T> & { replayed: boolean }> {
+export async function oncePerKey<T, P>(userId: string, key: string, hash: string, prepare: () => Promise<P>, work: (tx: BatchTransaction, prepared: P) => Promise<{ body: T, statements: Knex.QueryBuilder[] }>): Promise<StoredAnswer<T> & { replayed: boolean }> {
   // No look-up first: a repeat is rare, and the receipt's primary key catches it when the batch's own
   // receipt is written (the repeat's work is then rolled back and the stored answer returned).
   for (let attempt = 1; ; attempt++) {
@@ -38,12 +38,12 @@ export async function oncePerKey<T, P>(userId: string, key: string, hash: string
       const prepared = prepare()
       // Awaited inside the transaction; a failure before then must not go unhandled.
       prepared.catch(() => {})
-      return await useBatchWriter().transaction(async (trx) => {
-        const { body, statements } = await work(trx, await prepared)
-        const receipt = trx('sync_receipts').insert({ user_id: userId, idempotency_key: key, request_hash: hash, status_code: 200, response: JSON.stringify(body) })
-        await runInOneTrip(trx, [...statements, receipt])
-        return { statusCode: 200, body, replayed: false }
+      const body = await inBatchTransaction(async (tx) => {
+        const { body, statements } = await work(tx, await prepared)
+        const receipt = tx.knex('sync_receipts').insert({ user_id: userId, idempotency_key: key, request_hash: hash, status_code: 200, response: JSON.stringify(body) })
+        return { value: body, statements: [...statements, receipt] }
       })
+      return { statusCode: 200, body, replayed: false }
     }
     catch (error) {
       const code = (error as { code?: string }).code
