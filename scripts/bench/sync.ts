@@ -1,6 +1,9 @@
 // `npm run bench:sync`: a crew's week (7 day sheets × 5 crew, 40 lifts, 20 drops, 60 phone JPEGs of
 // 4000×3000) through the sync and photo routes, against a raw Knex insert and a bare sharp resize.
+import { spawn } from 'node:child_process'
 import { randomUUID } from 'node:crypto'
+import { once } from 'node:events'
+import { resolve } from 'node:path'
 import sharp from 'sharp'
 import { photoSizes } from '../../shared/utils/photos'
 import { freshDatabase, median, signIn, startServer, timed } from './harness'
@@ -9,7 +12,8 @@ import { failInOneLine } from '../run-helpers'
 import { measureTodayJs } from './today-js'
 
 const database = 'tamp_bench_sync'
-const rounds = 12
+// Many rounds, medians, and the two sides taking turns to go first: the machine is shared and noisy.
+const rounds = 30
 const photoCount = 60
 
 function week(job: { id: string, zoneId: string }, crew: string[]) {
@@ -36,34 +40,52 @@ async function bareResize(input: Buffer): Promise<void> {
 
 async function main(): Promise<void> {
   const db = await freshDatabase(database)
-  const company = await seedCompany(db, rounds * 2 + 2)
+  const company = await seedCompany(db, rounds * 3 + 2)
   const server = await startServer(database)
+  // The raw insert behind a bare HTTP hop, for a second figure (the RESULT line keeps the issue's definition).
+  const bare = spawn(process.execPath, ['--import', 'tsx', resolve(import.meta.dirname, 'bare-ingest.ts'), database, company.leadId], { stdio: ['ignore', 'pipe', 'inherit'] })
+  const barePort = Number(String((await once(bare.stdout, 'data'))[0]).trim())
   try {
     const cookie = await signIn(server.url, company.leadEmail, benchPassword)
     const oursMs: number[] = []
     const rawMs: number[] = []
+    const bareHttpMs: number[] = []
     let perRound = 0
     for (let r = 0; r < rounds; r++) {
-      const ours = week(company.jobs[r * 2]!, company.crew)
-      perRound = ours.count
-      const changes = [...ours.sheets.map(record => ({ kind: 'day_sheet', record })), ...ours.entries.map(record => ({ kind: 'time_entry', record })), ...ours.lifts.map(record => ({ kind: 'lift', record })), ...ours.drops.map(record => ({ kind: 'material_drop', record }))]
-        .map(c => ({ ...c, op: 'upsert', baseRevision: null }))
-      const sent = await timed(() => fetch(`${server.url}/api/sync`, { method: 'POST', headers: { 'content-type': 'application/json', cookie, 'idempotency-key': randomUUID() }, body: JSON.stringify({ changes }) }).then(async res => ({ status: res.status, body: await res.json() })))
-      if (sent.value.status !== 200 || sent.value.body.results.some((x: { status: string }) => x.status !== 'applied')) throw new Error(`sync answered ${sent.value.status}`)
-      oursMs.push(sent.ms)
-
-      const raw = week(company.jobs[r * 2 + 1]!, company.crew)
-      const inserted = await timed(() => db.transaction(async (trx) => {
-        await trx('day_sheets').insert(raw.sheets.map(s => snake({ ...s, authorId: company.leadId })))
-        await trx('time_entries').insert(raw.entries.map(snake))
-        await trx('lifts').insert(raw.lifts.map(l => snake({ ...l, jobId: raw.sheets[0]!.jobId })))
-        await trx('material_drops').insert(raw.drops.map(d => snake({ ...d, jobId: raw.sheets[0]!.jobId })))
-      }))
-      rawMs.push(inserted.ms)
+      const viaRoute = async () => {
+        const ours = week(company.jobs[r * 2]!, company.crew)
+        perRound = ours.count
+        const changes = [...ours.sheets.map(record => ({ kind: 'day_sheet', record })), ...ours.entries.map(record => ({ kind: 'time_entry', record })), ...ours.lifts.map(record => ({ kind: 'lift', record })), ...ours.drops.map(record => ({ kind: 'material_drop', record }))]
+          .map(c => ({ ...c, op: 'upsert', baseRevision: null }))
+        const sent = await timed(() => fetch(`${server.url}/api/sync`, { method: 'POST', headers: { 'content-type': 'application/json', cookie, 'idempotency-key': randomUUID() }, body: JSON.stringify({ changes }) }).then(async res => ({ status: res.status, body: await res.json() })))
+        if (sent.value.status !== 200 || sent.value.body.results.some((x: { status: string }) => x.status !== 'applied')) throw new Error(`sync answered ${sent.value.status}`)
+        oursMs.push(sent.ms)
+      }
+      const viaKnex = async () => {
+        const raw = week(company.jobs[r * 2 + 1]!, company.crew)
+        const inserted = await timed(() => db.transaction(async (trx) => {
+          await trx('day_sheets').insert(raw.sheets.map(s => snake({ ...s, authorId: company.leadId })))
+          await trx('time_entries').insert(raw.entries.map(snake))
+          await trx('lifts').insert(raw.lifts.map(l => snake({ ...l, jobId: raw.sheets[0]!.jobId })))
+          await trx('material_drops').insert(raw.drops.map(d => snake({ ...d, jobId: raw.sheets[0]!.jobId })))
+        }))
+        rawMs.push(inserted.ms)
+      }
+      const viaBareHttp = async () => {
+        const raw = week(company.jobs[rounds * 2 + r]!, company.crew)
+        const changes = [...raw.sheets.map(record => ({ kind: 'day_sheet', record })), ...raw.entries.map(record => ({ kind: 'time_entry', record })), ...raw.lifts.map(record => ({ kind: 'lift', record })), ...raw.drops.map(record => ({ kind: 'material_drop', record }))]
+          .map(c => ({ ...c, op: 'upsert', baseRevision: null }))
+        const sent = await timed(() => fetch(`http://127.0.0.1:${barePort}/`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ changes }) }).then(async res => ({ status: res.status, body: await res.json() })))
+        if (sent.value.status !== 200) throw new Error(`the bare insert answered ${sent.value.status}`)
+        bareHttpMs.push(sent.ms)
+      }
+      const sides = [viaRoute, viaKnex, viaBareHttp]
+      for (let i = 0; i < sides.length; i++) await sides[(r + i) % sides.length]!()
     }
     const oursRate = perRound / (median(oursMs) / 1000)
     const rawRate = perRound / (median(rawMs) / 1000)
     console.log(`ingest: ${perRound} records a week; route ${median(oursMs).toFixed(1)} ms (${oursRate.toFixed(0)} records/s), raw Knex insert ${median(rawMs).toFixed(1)} ms (${rawRate.toFixed(0)} records/s), median of ${rounds}`)
+    console.log(`ingest: raw Knex insert behind a bare HTTP hop ${median(bareHttpMs).toFixed(1)} ms; ours/that rate ${(median(bareHttpMs) / median(oursMs)).toFixed(3)} (a second figure, not the issue's ratio)`)
 
     // `npm run bench:sync -- --ingest-only` stops here, for quick turns on the sync route.
     if (process.argv.includes('--ingest-only')) return
@@ -90,6 +112,7 @@ async function main(): Promise<void> {
     console.log(`RESULT ingest_ratio=${(oursRate / rawRate).toFixed(3)} photo_ratio=${(meanOf(routeMs) / meanOf(bareMs)).toFixed(3)} peak_rss_mb=${server.peakRssMb().toFixed(0)}`)
   }
   finally {
+    bare.kill('SIGTERM')
     await server.stop()
     await db.destroy()
   }

@@ -1,11 +1,12 @@
 // Applies one batch of phone changes inside the caller's transaction: decide every change against the
 // server's state, then write with one statement per kind where possible.
 import type { Knex } from 'knex'
-import type { FlagAnswerChange, PhoneChange, SyncChange, SyncResult } from '../../../shared/schemas/daybook'
+import type { FlagAnswerChange, PhoneChange, SyncAnswer, SyncChange, SyncResult } from '../../../shared/schemas/daybook'
 import type { Member } from '../members'
-import { loadContext, type BatchContext } from './context'
+import { loadContext, type BatchContext, type BatchProbe } from './context'
 import { fromRow, kindMaps, sameContent, toColumns } from './kinds'
 import { applyFlagAnswers } from './flag-answers'
+import type { BatchTransaction } from './writer'
 
 type Row = Record<string, unknown> & { id: string }
 type Write = { kind: SyncChange['kind'], id: string, columns: Record<string, unknown>, revision: number, op: 'insert' | 'update' | 'delete' }
@@ -83,18 +84,26 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   return { result: { ...base, status: 'applied', revision: 1 }, write: { kind, id: record.id, columns, revision: 1, op: 'insert' } }
 }
 
-export async function applyChanges(trx: Knex.Transaction, member: Member, phoneChanges: PhoneChange[], batchId: string): Promise<SyncResult[]> {
+/** Decides every change of the batch against the locked rows; answers the results and the statements that write them. */
+export async function applyChanges(tx: BatchTransaction, member: Member, phoneChanges: PhoneChange[], probe: BatchProbe, batchId: string): Promise<{ body: SyncAnswer, statements: Knex.QueryBuilder[] }> {
   // Answers to flags are review notes, not daybook records: they have their own small path.
   const answers = phoneChanges.filter((c): c is FlagAnswerChange => c.kind === 'flag_answer')
   const changes = phoneChanges.filter((c): c is SyncChange => c.kind !== 'flag_answer')
-  const answered = await applyFlagAnswers(trx, member, answers, new Date())
-  if (!changes.length) return answered
-  const ctx = await loadContext(trx, member, changes)
+  const answered = await applyFlagAnswers(tx, member, answers, new Date())
+  const recorded = changes.length ? await applyRecordChanges(tx, member, changes, probe, batchId) : { results: [], statements: [] }
+  // The results in the order the changes were sent.
+  const results = phoneChanges.map(c => (c.kind === 'flag_answer' ? answered.results : recorded.results).shift() as SyncResult)
+  return { body: { results }, statements: [...recorded.statements, ...answered.statements] }
+}
+
+async function applyRecordChanges(tx: BatchTransaction, member: Member, changes: SyncChange[], probe: BatchProbe, batchId: string): Promise<{ results: SyncResult[], statements: Knex.QueryBuilder[] }> {
+  const ctx = await loadContext(tx, probe, member.role)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
   const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member))
   const writes = decisions.flatMap(d => d.write ? [d.write] : [])
   const now = new Date()
+  const statements: Knex.QueryBuilder[] = []
 
   // Inserts in dependency order: day sheets before what hangs on them.
   for (const kind of Object.keys(kindMaps) as SyncChange['kind'][]) {
@@ -109,22 +118,21 @@ export async function applyChanges(trx: Knex.Transaction, member: Member, phoneC
       }
       return { ...w.columns, ...extra, revision: 1, created_at: now, updated_at: now }
     })
-    if (rows.length) await trx(kindMaps[kind].table).insert(rows)
+    if (rows.length) statements.push(tx.knex(kindMaps[kind].table).insert(rows))
   }
   for (const w of writes.filter(w => w.op === 'update')) {
-    await trx(kindMaps[w.kind].table).where({ id: w.id }).update({ ...w.columns, revision: w.revision, updated_at: now })
+    statements.push(tx.knex(kindMaps[w.kind].table).where({ id: w.id }).update({ ...w.columns, revision: w.revision, updated_at: now }))
   }
   for (const kind of Object.keys(kindMaps) as SyncChange['kind'][]) {
     const ids = writes.filter(w => w.kind === kind && w.op === 'delete').map(w => w.id)
-    if (ids.length) await trx(kindMaps[kind].table).whereIn('id', ids).delete()
+    if (ids.length) statements.push(tx.knex(kindMaps[kind].table).whereIn('id', ids).delete())
   }
   // One audit line per batch, listing every record it wrote (a week of a crew is a hundred records).
   if (writes.length) {
-    await trx('audit_log').insert({
+    statements.push(tx.knex('audit_log').insert({
       organisation_id: member.organisationId, actor_id: member.userId, action: 'sync.batch', subject_type: 'sync_batch', subject_id: batchId,
       detail: JSON.stringify({ writes: writes.map(w => ({ kind: w.kind, id: w.id, op: w.op, revision: w.revision })) }), created_at: now,
-    })
+    }))
   }
-  const results = decisions.map(d => d.result)
-  return answered.length ? phoneChanges.map(c => (c.kind === 'flag_answer' ? answered : results).shift() as SyncResult) : results
+  return { results: decisions.map(d => d.result), statements }
 }

@@ -1,8 +1,17 @@
-// Everything a batch's decisions need, read in a handful of set-based queries (never one per record).
+// Everything a batch's decisions need, in two steps (never one query per record):
+// 1. `probeBatch`, on a pooled connection while the batch's transaction opens: one UNION query finds which
+//    records and natural keys already exist, the roster, the lifts' zones and the jobs the member may see.
+//    It locks nothing, so it may run outside the transaction.
+// 2. `loadContext`, inside the transaction: only the rows the probe found (records edited or deleted, and
+//    the days that new entries join) are read again, locked, and the decisions use those locked rows.
+// A batch of new records (the usual case) thus costs one read. A record or natural key created by another
+// batch after the probe hits a unique key when inserted, and the whole batch is decided again (receipts.ts).
 import type { Knex } from 'knex'
-import type { SyncChange } from '../../../shared/schemas/daybook'
-import type { Member } from '../members'
+import type { RecordKind, SyncChange } from '../../../shared/schemas/daybook'
+import type { Member, SignedIn } from '../members'
+import { roles, type Role } from '../../../shared/utils/daybook'
 import { kindMaps } from './kinds'
+import type { BatchTransaction } from './writer'
 
 type Row = Record<string, unknown> & { id: string }
 
@@ -12,82 +21,128 @@ export interface BatchContext {
   visibleJobs: Set<string>
   zones: Map<string, Row>
   crew: Set<string>
-  /** `job|date` of day sheets and `sheet|person` of time entries already on the server, to their ids. */
+  /** `job|date` of day sheets, `sheet|person` of time entries, `job|material|unit` of estimate lines already on the server, to their ids. */
   naturalKeys: Map<string, string>
   nextLiftSequence: Map<string, number>
 }
 
+export interface BatchProbe {
+  /** Ids of the batch's records that exist on the server, by kind. */
+  found: Record<SyncChange['kind'], Set<string>>
+  /** Day sheets on the server that entries of the batch join (not sheets of the batch itself). */
+  parentSheets: Set<string>
+  naturalKeys: Map<string, string>
+  /** The batch's jobs each role would see (the probe runs before the member's role is confirmed). */
+  visibleJobs: Record<Role, Set<string>>
+  zones: Map<string, Row>
+  crew: Set<string>
+  nextLiftSequence: Map<string, number>
+}
+
 const unique = (values: unknown[]) => [...new Set(values.filter((v): v is string => typeof v === 'string'))]
+const kinds = Object.keys(kindMaps) as RecordKind[]
+const ofKind = <K extends SyncChange['kind']>(changes: SyncChange[], kind: K) => changes.filter((c): c is Extract<SyncChange, { kind: K }> => c.kind === kind)
+/** Day sheets named by the batch's entries (time, drops, lifts) that the batch does not itself carry. */
+function parentSheetIds(changes: SyncChange[]): string[] {
+  const own = new Set(ofKind(changes, 'day_sheet').map(c => c.record.id))
+  return unique(changes.map(c => (c.record as { daySheetId?: string }).daySheetId)).filter(id => !own.has(id))
+}
 
-export async function loadContext(trx: Knex.Transaction, member: Member, changes: SyncChange[]): Promise<BatchContext> {
-  const ofKind = <K extends SyncChange['kind']>(kind: K) => changes.filter((c): c is Extract<SyncChange, { kind: K }> => c.kind === kind)
-  const sheetChanges = ofKind('day_sheet')
-  const entries = ofKind('time_entry')
-  const lifts = ofKind('lift')
-  const batchSheetIds = new Set(sheetChanges.map(c => c.record.id))
+interface ProbeRow { k: string, id: string, a: string | number | null, b: string | number | null, c: string | null }
 
-  // Reads that lock nothing go on other pooled connections, alongside the transaction's own.
-  const crewIds = unique(entries.map(c => c.record.crewMemberId))
-  const crewQuery = crewIds.length ? useDb()('crew_members').whereIn('id', crewIds).where('organisation_id', member.organisationId).pluck('id') : Promise.resolve([])
+/** One UNION query; every branch answers (k, id, a, b, c). */
+export async function probeBatch(signedIn: SignedIn, changes: SyncChange[]): Promise<BatchProbe> {
+  const db = useDb()
+  // Columns are named, or raw expressions that already carry their alias.
+  const branch = (k: string, table: string, ...columns: (string | Knex.Raw)[]) =>
+    db(table).select(db.raw('? AS k', [k]), `${table}.id AS id`, ...['a', 'b', 'c'].map((alias, i) => {
+      const column = columns[i]
+      return column === undefined ? db.raw(`NULL AS ${alias}`) : typeof column === 'string' ? `${table}.${column} AS ${alias}` : column
+    }))
+  const branches: Knex.QueryBuilder[] = []
 
-  const existing = {} as BatchContext['existing']
-  const naturalKeys = new Map<string, string>()
-  // Day sheets: by id, and by (job, date) so that a second sheet for the same day is caught.
-  const sheetRows: Row[] = sheetChanges.length
-    ? await trx('day_sheets').whereIn('id', [...batchSheetIds]).orWhereIn(['job_id', 'work_date'], sheetChanges.map(c => [c.record.jobId, c.record.workDate])).forUpdate()
-    : []
-  existing.day_sheet = new Map(sheetRows.filter(r => batchSheetIds.has(r.id)).map(r => [r.id, r]))
-  for (const row of sheetRows) naturalKeys.set(`${row.job_id}|${row.work_date}`, row.id)
-
-  for (const kind of ['material_drop', 'lift', 'zone', 'material_estimate'] as const) {
-    const ids = ofKind(kind).map(c => c.record.id)
-    const rows: Row[] = ids.length ? await trx(kindMaps[kind].table).whereIn('id', ids).forUpdate() : []
-    existing[kind] = new Map(rows.map(r => [r.id, r]))
+  const sheets = ofKind(changes, 'day_sheet')
+  const entries = ofKind(changes, 'time_entry')
+  const estimates = ofKind(changes, 'material_estimate')
+  for (const kind of kinds) {
+    const ids = changes.filter(c => c.kind === kind).map(c => c.record.id)
+    if (!ids.length) continue
+    const { table } = kindMaps[kind]
+    // Besides the records themselves, what would break a natural key: one sheet per job and date,
+    // one line of hours per person and day, one estimate line per material and unit.
+    if (kind === 'day_sheet') {
+      branches.push(branch(kind, table, 'job_id', 'work_date').whereIn('id', ids).orWhereIn(['job_id', 'work_date'], sheets.map(c => [c.record.jobId, c.record.workDate])))
+    }
+    else if (kind === 'time_entry') {
+      branches.push(branch(kind, table, 'day_sheet_id', 'crew_member_id').whereIn('id', ids).orWhereIn(['day_sheet_id', 'crew_member_id'], entries.map(c => [c.record.daySheetId, c.record.crewMemberId])))
+    }
+    else if (kind === 'material_estimate') {
+      branches.push(branch(kind, table, 'job_id', 'material', 'unit').whereIn('id', ids).orWhereIn(['job_id', 'material', 'unit'], estimates.map(c => [c.record.jobId, c.record.material, c.record.unit])))
+    }
+    else branches.push(branch(kind, table).whereIn('id', ids))
   }
-  // Time entries: by id, and by (day, person) for the days already on the server.
-  const entryIds = new Set(entries.map(c => c.record.id))
-  const entryPairs = entries.filter(c => !batchSheetIds.has(c.record.daySheetId) || existing.day_sheet.has(c.record.daySheetId)).map(c => [c.record.daySheetId, c.record.crewMemberId])
-  const entryRows: Row[] = entries.length
-    ? await trx('time_entries').whereIn('id', [...entryIds]).modify((q) => {
-        if (entryPairs.length) q.orWhereIn(['day_sheet_id', 'crew_member_id'], entryPairs)
-      }).forUpdate()
-    : []
-  existing.time_entry = new Map(entryRows.filter(r => entryIds.has(r.id)).map(r => [r.id, r]))
-  for (const row of entryRows) naturalKeys.set(`${row.day_sheet_id}|${row.crew_member_id}`, row.id)
+  const parents = parentSheetIds(changes)
+  if (parents.length) branches.push(branch('parent', 'day_sheets', 'job_id').whereIn('id', parents))
+  const crewIds = unique(entries.map(c => c.record.crewMemberId))
+  if (crewIds.length) branches.push(branch('crew', 'crew_members').whereIn('id', crewIds).where('organisation_id', signedIn.organisationId))
+  const zoneIds = unique(ofKind(changes, 'lift').map(c => c.record.zoneId))
+  if (zoneIds.length) branches.push(branch('zone_of_lift', 'zones', 'job_id', db.raw('(SELECT MAX(l.sequence) FROM lifts AS l WHERE l.zone_id = zones.id) AS b')).whereIn('id', zoneIds))
+  // The jobs the batch names, directly or through the days its entries join.
+  const jobIds = unique(changes.map(c => (c.record as { jobId?: string }).jobId))
+  // One branch per role, from the same rule as every other route (visibleJobs reads only the organisation,
+  // the user and the role); the member's confirmed role picks one in loadContext.
+  for (const role of jobIds.length || parents.length ? roles : []) {
+    const as: Member = { ...signedIn, role, membershipId: '', name: '' }
+    branches.push(visibleJobs(as).select(db.raw('? AS k', [`job:${role}`]), 'jobs.id AS id', db.raw('NULL AS a'), db.raw('NULL AS b'), db.raw('NULL AS c')).andWhere((q) => {
+      q.whereIn('jobs.id', jobIds)
+      if (parents.length) q.orWhereIn('jobs.id', db('day_sheets').whereIn('id', parents).select('job_id'))
+    }))
+  }
 
-  const estimates = ofKind('material_estimate')
-  if (estimates.length) {
-    for (const row of await trx('material_estimates').whereIn(['job_id', 'material', 'unit'], estimates.map(c => [c.record.jobId, c.record.material, c.record.unit])).select('id', 'job_id', 'material', 'unit')) {
-      naturalKeys.set(`${row.job_id}|${row.material}|${row.unit}`, row.id)
+  const [first, ...rest] = branches
+  const rows: ProbeRow[] = first ? await (rest.length ? first.unionAll(rest, true) : first) : []
+
+  const probe: BatchProbe = {
+    found: Object.fromEntries(kinds.map(kind => [kind, new Set<string>()])) as BatchProbe['found'],
+    parentSheets: new Set(),
+    naturalKeys: new Map(),
+    visibleJobs: Object.fromEntries(roles.map(role => [role, new Set<string>()])) as BatchProbe['visibleJobs'],
+    zones: new Map(),
+    crew: new Set(),
+    nextLiftSequence: new Map(),
+  }
+  const batchIds = Object.fromEntries(kinds.map(kind => [kind, new Set(changes.filter(c => c.kind === kind).map(c => c.record.id))])) as Record<RecordKind, Set<string>>
+  for (const row of rows) {
+    if (row.k === 'parent') probe.parentSheets.add(row.id)
+    else if (row.k === 'crew') probe.crew.add(row.id)
+    else if (row.k.startsWith('job:')) probe.visibleJobs[row.k.slice(4) as Role].add(row.id)
+    else if (row.k === 'zone_of_lift') {
+      probe.zones.set(row.id, { id: row.id, job_id: row.a })
+      probe.nextLiftSequence.set(row.id, Number(row.b ?? 0) + 1)
+    }
+    else {
+      const kind = row.k as RecordKind
+      if (batchIds[kind]?.has(row.id)) probe.found[kind].add(row.id)
+      if (kind === 'day_sheet' || kind === 'time_entry') probe.naturalKeys.set(`${row.a}|${row.b}`, row.id)
+      if (kind === 'material_estimate') probe.naturalKeys.set(`${row.a}|${row.b}|${row.c}`, row.id)
     }
   }
-  const planChanges = [...ofKind('zone'), ...estimates]
-  const children = changes.filter(c => c.kind !== 'day_sheet' && c.kind !== 'zone' && c.kind !== 'material_estimate')
-  const sheetIds = unique([
-    ...children.map(c => (c.record as { daySheetId: string }).daySheetId),
-    ...children.map(c => existing[c.kind].get(c.record.id)?.day_sheet_id),
-  ]).filter(id => !batchSheetIds.has(id))
-  const sheets = new Map(existing.day_sheet)
-  if (sheetIds.length) for (const row of await trx('day_sheets').whereIn('id', sheetIds).forUpdate() as Row[]) sheets.set(row.id, row)
+  return probe
+}
 
-  const zoneIds = unique(lifts.map(c => c.record.zoneId))
-  const zones: (Row & { top: number | null })[] = zoneIds.length
-    ? await trx('zones').whereIn('id', zoneIds).select('id', 'job_id', trx.raw('(SELECT MAX(sequence) FROM lifts WHERE lifts.zone_id = zones.id) AS top'))
-    : []
-
-  const jobIds = unique([...sheetChanges.map(c => c.record.jobId), ...planChanges.map(c => c.record.jobId), ...[...sheets.values()].map(s => s.job_id)])
-  const [visible, crew]: [string[], string[]] = await Promise.all([
-    jobIds.length ? visibleJobs(member).whereIn('jobs.id', jobIds).pluck('jobs.id') : [],
-    crewQuery,
-  ])
-
-  return {
-    existing,
-    sheets,
-    visibleJobs: new Set(visible),
-    zones: new Map(zones.map(z => [z.id, z])),
-    crew: new Set(crew),
-    naturalKeys,
-    nextLiftSequence: new Map(zones.map(z => [z.id, (z.top ?? 0) + 1])),
+/** The decisions' context: the probe, with every row that exists read again and locked in the batch's transaction (one round trip). */
+export async function loadContext(tx: BatchTransaction, probe: BatchProbe, role: Role): Promise<BatchContext> {
+  const locking = kinds.flatMap((kind) => {
+    const ids = kind === 'day_sheet' ? [...probe.found.day_sheet, ...probe.parentSheets] : [...probe.found[kind]]
+    return ids.length ? [{ kind, query: tx.knex(kindMaps[kind].table).whereIn('id', ids).forUpdate() }] : []
+  })
+  const locked = locking.length ? await tx.read(locking.map(l => l.query)) : []
+  const existing = {} as BatchContext['existing']
+  const sheets = new Map<string, Row>()
+  for (const kind of kinds) {
+    const rows = locked[locking.findIndex(l => l.kind === kind)] ?? []
+    existing[kind] = new Map(rows.filter(r => probe.found[kind].has(r.id)).map(r => [r.id, r]))
+    if (kind === 'day_sheet') for (const row of rows) sheets.set(row.id, row)
   }
+  return { existing, sheets, visibleJobs: probe.visibleJobs[role], zones: probe.zones, crew: probe.crew, naturalKeys: probe.naturalKeys, nextLiftSequence: probe.nextLiftSequence }
 }

@@ -4,20 +4,23 @@
 import type { Knex } from 'knex'
 import type { FlagAnswerChange, SyncResult } from '../../../shared/schemas/daybook'
 import type { Member } from '../members'
+import type { BatchTransaction } from './writer'
 
-interface AnswerRow { id: string, kind: string, parent_id: string | null, body: string | null }
-interface FlagRow { id: string, organisation_id: string, job_id: string, day_sheet_id: string, subject_type: string, subject_id: string }
+type AnswerRow = Record<string, unknown> & { id: string, kind: string, parent_id: string | null, body: string | null }
+type FlagRow = Record<string, unknown> & { id: string, organisation_id: string, job_id: string, day_sheet_id: string, subject_type: string, subject_id: string }
 
-export async function applyFlagAnswers(trx: Knex.Transaction, member: Member, changes: FlagAnswerChange[], now: Date): Promise<SyncResult[]> {
-  if (!changes.length) return []
+/** Decides the answers of a batch; answers their results and the statements that store them (sent with the batch's writes). */
+export async function applyFlagAnswers(tx: BatchTransaction, member: Member, changes: FlagAnswerChange[], now: Date): Promise<{ results: SyncResult[], statements: Knex.QueryBuilder[] }> {
+  if (!changes.length) return { results: [], statements: [] }
   const ids = changes.map(c => c.record.id)
   const flagIds = [...new Set(changes.map(c => c.record.flagId))]
-  const [existing, flags]: [AnswerRow[], FlagRow[]] = await Promise.all([
-    trx('review_notes').whereIn('id', ids).forUpdate().select('id', 'kind', 'parent_id', 'body'),
+  // Unlocked: an answer inserted by another batch meanwhile hits the primary key, and the batch is decided again.
+  const [existing, flags] = await tx.read([
+    tx.knex('review_notes').whereIn('id', ids).select('id', 'kind', 'parent_id', 'body'),
     // Only flags on jobs this member can see: anyone else's flag is as absent as a missing one.
     visibleJobs(member).join('review_notes as f', 'f.job_id', 'jobs.id').whereIn('f.id', flagIds).where('f.kind', 'flag')
       .select('f.id', 'f.organisation_id', 'f.job_id', 'f.day_sheet_id', 'f.subject_type', 'f.subject_id'),
-  ])
+  ]) as [AnswerRow[], FlagRow[]]
   const stored = new Map(existing.map(row => [row.id, row]))
   const flagById = new Map(flags.map(row => [row.id, row]))
   const rows: Record<string, unknown>[] = []
@@ -36,9 +39,10 @@ export async function applyFlagAnswers(trx: Knex.Transaction, member: Member, ch
     })
     return { ...base, status: 'applied', revision: 1 }
   })
-  if (rows.length) {
-    await trx('review_notes').insert(rows)
-    for (const row of rows) await audit(trx, member, 'review.answer', 'review_note', row.parent_id as string, { noteId: row.id, daySheetId: row.day_sheet_id })
-  }
-  return results
+  if (!rows.length) return { results, statements: [] }
+  const audits = rows.map(row => ({
+    organisation_id: member.organisationId, actor_id: member.userId, action: 'review.answer', subject_type: 'review_note', subject_id: row.parent_id,
+    detail: JSON.stringify({ noteId: row.id, daySheetId: row.day_sheet_id }), created_at: now,
+  }))
+  return { results, statements: [tx.knex('review_notes').insert(rows), tx.knex('audit_log').insert(audits)] }
 }

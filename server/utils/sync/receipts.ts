@@ -3,6 +3,7 @@
 // answer was lost on the way to the phone is answered again, never applied twice.
 import { createHash } from 'node:crypto'
 import type { Knex } from 'knex'
+import { inBatchTransaction, type BatchTransaction } from './writer'
 
 export interface StoredAnswer<T> { statusCode: number, body: T }
 
@@ -19,23 +20,43 @@ async function storedAnswer<T>(db: Knex | Knex.Transaction, userId: string, key:
   return { statusCode: receipt.status_code, body: typeof receipt.response === 'string' ? JSON.parse(receipt.response) : receipt.response }
 }
 
-export async function oncePerKey<T>(userId: string, key: string, hash: string, work: (trx: Knex.Transaction) => Promise<T>): Promise<StoredAnswer<T> & { replayed: boolean }> {
+/** How often a batch is decided again after losing a race for a record's key to another batch. */
+const attempts = 3
+
+/**
+ * Runs `work` once per Idempotency-Key, in one transaction with the receipt. `prepare` (reads that lock
+ * nothing) runs on another pooled connection while the transaction opens, and its answer is handed to
+ * `work`; both run again when another batch inserted one of the same records or natural keys meanwhile.
+ * `work` decides and answers the statements that write its decisions: they go to the database with the
+ * receipt in one round trip.
+ */
+export async function oncePerKey<T, P>(userId: string, key: string, hash: string, prepare: () => Promise<P>, work: (tx: BatchTransaction, prepared: P) => Promise<{ body: T, statements: Knex.QueryBuilder[] }>): Promise<StoredAnswer<T> & { replayed: boolean }> {
   // No look-up first: a repeat is rare, and the receipt's primary key catches it when the batch's own
   // receipt is written (the repeat's work is then rolled back and the stored answer returned).
-  try {
-    return await useDb().transaction(async (trx) => {
-      const body = await work(trx)
-      await trx('sync_receipts').insert({ user_id: userId, idempotency_key: key, request_hash: hash, status_code: 200, response: JSON.stringify(body) })
+  for (let attempt = 1; ; attempt++) {
+    try {
+      const prepared = prepare()
+      // Awaited inside the transaction; a failure before then must not go unhandled.
+      prepared.catch(() => {})
+      const body = await inBatchTransaction(async (tx) => {
+        const { body, statements } = await work(tx, await prepared)
+        const receipt = tx.knex('sync_receipts').insert({ user_id: userId, idempotency_key: key, request_hash: hash, status_code: 200, response: JSON.stringify(body) })
+        return { value: body, statements: [...statements, receipt] }
+      })
       return { statusCode: 200, body, replayed: false }
-    })
-  }
-  catch (error) {
-    // A repeat of a request already answered (or arriving at the same moment): answer as the first did.
-    if ((error as { code?: string }).code === 'ER_DUP_ENTRY') {
+    }
+    catch (error) {
+      const code = (error as { code?: string }).code
+      // Chosen as a deadlock's victim, the batch was rolled back whole: it can simply run again.
+      if (code === 'ER_LOCK_DEADLOCK' && attempt < attempts) continue
+      if (code !== 'ER_DUP_ENTRY') throw error
+      // A repeat of a request already answered (or arriving at the same moment): answer as the first did.
       const winner = await storedAnswer<T>(useDb(), userId, key, hash)
       if (winner) return { ...winner, replayed: true }
+      // Another batch created one of these records (or took a natural key) after they were looked up:
+      // decide again against what is now on the server.
+      if (attempt >= attempts) throw error
     }
-    throw error
   }
 }
 
