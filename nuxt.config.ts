@@ -93,6 +93,7 @@ export default defineNuxtConfig({
     },
   },
   nitro: {
+    plugins: ['~~/server/early/request-start.ts'],
     handlers: [{ route: '/api/dev/mail', method: 'get', handler: '~~/server/dev/mail.get.ts', env: 'dev' }],
     typescript: { tsConfig: { compilerOptions: { noUncheckedIndexedAccess: true } } },
   },

@@ -20,10 +20,12 @@ export async function reviewListFor(member: Member): Promise<ReviewList> {
   const db = useDb()
   const count = (sql: string) => db.raw(sql)
   const open = () => visibleJobs(member).join('day_sheets as s', 's.job_id', 'jobs.id').whereIn('s.review_state', openStates)
+  // The page of days is chosen first; the counts are then worked out for those days only, not for
+  // every open day of every job before the sort (a foreman of hundreds of jobs has thousands).
+  const page = open().orderBy([{ column: 's.work_date', order: 'desc' }, { column: 'jobs.name' }]).limit(listLimit).select('s.id')
   const [rows, perJob]: [ListRow[], Record<string, unknown>[]] = await Promise.all([
-    open().leftJoin('users as u', 'u.id', 's.author_id')
+    db.from(page.as('page')).join('day_sheets as s', 's.id', 'page.id').join('jobs', 'jobs.id', 's.job_id').leftJoin('users as u', 'u.id', 's.author_id')
       .orderBy([{ column: 's.work_date', order: 'desc' }, { column: 'jobs.name' }])
-      .limit(listLimit)
       .select(
         's.id', 'jobs.id as jobId', 'jobs.name as jobName', 's.work_date as workDate', 's.status', 's.review_state as reviewState', 'u.name as authorName',
         count('(SELECT COUNT(*) FROM time_entries t WHERE t.day_sheet_id = s.id) AS crew'),
