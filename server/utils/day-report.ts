@@ -77,7 +77,7 @@ export function dayReportFacts(report: DayReport, audience: 'office' | 'homeowne
     if (day.hoursLost > 0) facts.push(['Hours lost', `${day.hoursLost} h${day.hoursLostReason ? `: ${day.hoursLostReason}` : ''}`])
   }
   else {
-    facts.push(['Crew', `${report.crew.filter(c => c.hours > 0).length} on site`])
+    facts.push(['Crew', `${report.crew.length} on site`])
   }
   facts.push(['Work done', day.workDone || 'Nothing noted'])
   facts.push(['Material drops', report.drops.length ? report.drops.map(d => `${d.quantity} ${d.unit} ${d.material}${d.stagedAt ? ` at ${d.stagedAt}` : ''}`).join('; ') : 'None'])

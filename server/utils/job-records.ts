@@ -26,7 +26,7 @@ export async function jobDays(member: Member, jobId: string): Promise<JobDayRow[
   const { worked, weather } = crewDaySql('s.status')
   const count = (table: string, expression = 'COUNT(*)') => db(table).where('job_id', jobId).groupBy('day_sheet_id').select('day_sheet_id', db.raw(`${expression} AS n`))
   const entries = db('time_entries as t').join('day_sheets as d', 'd.id', 't.day_sheet_id').where('d.job_id', jobId)
-    .groupBy('t.day_sheet_id').select('t.day_sheet_id', db.raw('SUM(t.hours > 0) AS crew'), db.raw('SUM(t.hours) AS hours'))
+    .groupBy('t.day_sheet_id').select('t.day_sheet_id', db.raw('COUNT(*) AS crew'), db.raw('SUM(t.hours) AS hours'))
   const rows = await db('day_sheets as s').where('s.job_id', jobId)
     .leftJoin(entries.as('e'), 'e.day_sheet_id', 's.id')
     .leftJoin(count('lifts').as('l'), 'l.day_sheet_id', 's.id')

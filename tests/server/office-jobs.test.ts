@@ -225,12 +225,12 @@ describe('exports', () => {
     expect(lines.find(l => l.startsWith('Spruce edging,'))).toContain(',"\'=HYPERLINK(""http://x.test"",""pay here"")",')
   })
 
-  it('exports a job\'s days, newest first', async () => {
+  it('exports a job\'s days, newest first, counting the crew sent home from the rain-out as on site', async () => {
     const response = await call('GET', `/api/exports/job-days/${patioId}`, { cookie: foreman })
     const lines = rowsOf(await response.text())
     expect(lines[0]).toBe('Date,Day,Review,Weather,Crew-days,Weather days,Crew on site,Person-hours,Lifts,Drops,Photos,Work done')
     expect(lines.slice(1).map(l => l.split(',').slice(0, 8).join(','))).toEqual([
-      '2030-03-06,Rain-out,waiting,Heavy rain,0,1,0,0',
+      '2030-03-06,Rain-out,waiting,Heavy rain,0,1,3,0',
       '2030-03-05,Half day,waiting,Clear,0.5,0,2,8',
       '2030-03-04,Full day,waiting,Clear,1,0,3,24',
     ])
@@ -278,10 +278,10 @@ describe('company holidays', () => {
 describe('the office\'s job page and printable reports', () => {
   const sheetOn = async (workDate: string) => (await testDb()('day_sheets').where({ job_id: patioId, work_date: workDate }).first('id')).id as string
 
-  it('lists the job\'s days newest first with their crew, hours and weather days', async () => {
+  it('lists the job\'s days newest first with their crew (the rain-out\'s sent home too), hours and weather days', async () => {
     const { days } = await (await call('GET', `/api/jobs/${patioId}/days`, { cookie: office })).json()
     expect(days.map((d: Record<string, unknown>) => [d.workDate, d.status, d.crewDays, d.weatherDays, d.crew, d.personHours])).toEqual([
-      ['2030-03-06', 'rain_out', 0, 1, 0, 0],
+      ['2030-03-06', 'rain_out', 0, 1, 3, 0],
       ['2030-03-05', 'half_day', 0.5, 0, 2, 8],
       ['2030-03-04', 'full_day', 1, 0, 3, 24],
     ])
