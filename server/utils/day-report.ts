@@ -1,7 +1,7 @@
 // One day on one job as the office reads it: the day report e-mail, the printable day report and the
 // job's list of days all start from here.
 import type { Member } from './members'
-import { dayStatusLabels, type DayStatus, type ReviewState } from '../../shared/utils/daybook'
+import { dayStatusLabels, weatherLine, type DayStatus, type ReviewState } from '../../shared/utils/daybook'
 
 
 export interface DayReport {
@@ -55,10 +55,6 @@ export async function requireDayReport(member: Member, daySheetId: string): Prom
   return { ...report, photos: report.photos.map(p => ({ id: p.id, caption: p.caption, thumbUrl: p.thumbUrl, displayUrl: p.displayUrl })) }
 }
 
-export function weatherLine(day: DayReport['day']): string {
-  const parts = [day.weatherConditions, day.temperatureF !== null ? `${day.temperatureF} °F` : null, day.rainIn !== null ? `${day.rainIn} in of rain` : null].filter(Boolean)
-  return parts.length ? parts.join(', ') : 'Not recorded'
-}
 
 /** Label and value lines of the report; the homeowner's copy names no crew member and no hours of theirs. */
 export function dayReportFacts(report: DayReport, audience: 'office' | 'homeowner'): [string, string][] {

@@ -3,7 +3,7 @@
 // never inside a request, so a relay that is down delays a message but never a sync or a save.
 import type { OutgoingMail } from './mail'
 import { dayReportFacts, loadDayReport, type DayReport } from './day-report'
-import { dayStatusLabels } from '../../shared/utils/daybook'
+import { dayStatusLabels, weatherLine } from '../../shared/utils/daybook'
 import { calendarDateIn } from '../../shared/utils/work-calendar'
 import { retryDelayMs } from './mail-retry'
 
@@ -119,7 +119,7 @@ function rainOutBody(report: DayReport) {
       `The crew logged a rain-out at ${report.job.siteAddress} on ${day.workDate}. It counts as a weather day, not a crew-day of the bid.`,
       ...(day.hoursLostReason ? [`Reason given: ${day.hoursLostReason}`] : []),
     ],
-    facts: [['Weather', [day.weatherConditions, day.rainIn !== null ? `${day.rainIn} in of rain` : null].filter(Boolean).join(', ') || 'Not recorded'], ['Crew on site', String(report.crew.length)]],
+    facts: [['Weather', weatherLine(day)], ['Crew on site', String(report.crew.length)]],
   })
 }
 

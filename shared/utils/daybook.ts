@@ -15,6 +15,12 @@ export type DayStatus = (typeof dayStatuses)[number]
 /** The office's words for a day's status (English screens, reports, CSV and e-mail; the phone translates its own). */
 export const dayStatusLabels: Record<DayStatus, string> = { full_day: 'Full day', half_day: 'Half day', rain_out: 'Rain-out', no_work: 'No work' }
 
+/** A day's weather in one line, as the office's reports and e-mails print it. */
+export function weatherLine(day: { weatherConditions: string | null, temperatureF: number | null, rainIn: number | null }): string {
+  const parts = [day.weatherConditions, day.temperatureF !== null ? `${day.temperatureF} °F` : null, day.rainIn !== null ? `${day.rainIn} in of rain` : null].filter(Boolean)
+  return parts.length ? parts.join(', ') : 'Not recorded'
+}
+
 export const reviewStates = ['waiting', 'approved', 'flagged', 'reopened'] as const
 export type ReviewState = (typeof reviewStates)[number]
 
