@@ -25,7 +25,9 @@ export async function queueDueMail(settings: OutboxSettings, now = new Date()): 
   const queue = (kind: string, audience: string, reason: string) => `INSERT IGNORE INTO mail_outbox (organisation_id, kind, audience, day_sheet_id, reason)
     SELECT j.organisation_id, '${kind}', '${audience}', s.id, '${reason}' FROM day_sheets s JOIN jobs j ON j.id = s.job_id`
   const homeowner = 'AND j.homeowner_updates = 1 AND j.customer_email IS NOT NULL'
-  const approved = 'WHERE s.review_state = \'approved\' AND COALESCE(s.reviewed_at, s.updated_at) >= ?'
+  // A day with no work has nothing to report, approved or not.
+  const reported = 's.status <> \'no_work\''
+  const approved = `WHERE s.review_state = 'approved' AND COALESCE(s.reviewed_at, s.updated_at) >= ? AND ${reported}`
   const since = new Date(now.getTime() - reportLookbackDays * 86_400_000)
   await db.raw(`${queue('day_report', 'office', 'approved')} ${approved}`, [since])
   await db.raw(`${queue('day_report', 'homeowner', 'approved')} ${approved} ${homeowner}`, [since])
@@ -35,7 +37,7 @@ export async function queueDueMail(settings: OutboxSettings, now = new Date()): 
   for (const { time_zone: timeZone } of zones) {
     const local = safeDateIn(timeZone, now)
     if (!local || local.hour < settings.eveningHour) continue
-    const evening = 'WHERE j.organisation_id IN (SELECT id FROM organisations WHERE time_zone = ?) AND s.work_date = ? AND s.status <> \'no_work\''
+    const evening = 'WHERE j.organisation_id IN (SELECT id FROM organisations WHERE time_zone = ?) AND s.work_date = ? AND ' + reported
     await db.raw(`${queue('day_report', 'office', 'evening')} ${evening}`, [timeZone, local.date])
     await db.raw(`${queue('day_report', 'homeowner', 'evening')} ${evening} ${homeowner}`, [timeZone, local.date])
   }

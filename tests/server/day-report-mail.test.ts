@@ -117,6 +117,16 @@ describe('the day report', () => {
     expect(messagesTo(company.office.email, /^Day report: Fixture walk, 2026-11-24$/)).toHaveLength(1)
     expect(messagesTo(homeowner, /^Day report/)).toHaveLength(1)
   })
+
+  it('is not sent for an approved day with no work: the office and the homeowner hear nothing', async () => {
+    const { response, body } = await sync(lead, [{ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id: randomUUID(), jobId: company.jobId, workDate: '2026-11-23', status: 'no_work' } }])
+    expect(response.status).toBe(200)
+    const idleId = body.results[0].id as string
+    await testDb()('day_sheets').where({ id: idleId }).update({ review_state: 'approved', reviewed_by: company.foreman.userId, reviewed_at: new Date() })
+    await ticks(2)
+    expect(await testDb()('mail_outbox').where({ day_sheet_id: idleId }).first()).toBeUndefined()
+    expect(messagesTo(company.office.email, /2026-11-23/)).toEqual([])
+  })
 })
 
 describe('the rain-out notice', () => {
