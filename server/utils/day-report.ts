@@ -2,6 +2,7 @@
 // job's list of days all start from here.
 import type { Member } from './members'
 import { dayStatusLabels, weatherLine, type DayStatus, type ReviewState } from '../../shared/utils/daybook'
+import { photoUrls } from '../../shared/utils/photos'
 
 
 export interface DayReport {
@@ -43,7 +44,7 @@ export async function loadDayReport(daySheetId: string): Promise<DayReport | und
     crew: crew.map(c => ({ name: c.name, hours: Number(c.hours) })),
     drops: drops.map(d => ({ material: d.material, quantity: Number(d.quantity), unit: d.unit, stagedAt: d.staged_at, ticketNumber: d.ticket_number })),
     lifts: lifts.map(l => ({ zone: l.zone, sequence: l.sequence, material: l.material, looseIn: Number(l.loose_in), compactedIn: Number(l.compacted_in), passes: l.passes, compactorClass: l.compactor_class })),
-    photos: photos.map(p => ({ id: p.id, caption: p.caption, thumbKey: p.thumb_key, thumbUrl: `/api/photos/${p.id}/thumb`, displayUrl: `/api/photos/${p.id}/display` })),
+    photos: photos.map(p => ({ id: p.id, caption: p.caption, thumbKey: p.thumb_key, ...photoUrls(p.id) })),
   }
 }
 

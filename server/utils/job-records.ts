@@ -2,6 +2,7 @@
 import type { Member } from './members'
 import type { DayStatus, ReviewState } from '../../shared/utils/daybook'
 import { dayStatusLabels } from '../../shared/utils/daybook'
+import { photoUrls } from '../../shared/utils/photos'
 
 export interface JobDayRow {
   id: string
@@ -59,7 +60,7 @@ export async function jobPhotos(member: Member, jobId: string): Promise<JobPhoto
     .select('p.id', 's.work_date', 'p.subject_type', 'p.caption', 'p.taken_at', 'p.width', 'p.height')
   return rows.map(p => ({
     id: p.id, workDate: p.work_date ?? null, subjectType: p.subject_type, caption: p.caption, takenAt: p.taken_at ? new Date(p.taken_at).toISOString() : null,
-    width: p.width, height: p.height, thumbUrl: `/api/photos/${p.id}/thumb`, displayUrl: `/api/photos/${p.id}/display`,
+    width: p.width, height: p.height, ...photoUrls(p.id),
   }))
 }
 

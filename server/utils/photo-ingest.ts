@@ -4,7 +4,7 @@ import { createHash } from 'node:crypto'
 import type { H3Event } from 'h3'
 import sharp from 'sharp'
 import type { Member } from './members'
-import { photoKeys, photoSizes } from '../../shared/utils/photos'
+import { photoKeys, photoSizes, photoUrls } from '../../shared/utils/photos'
 import { photoContentTypes, type PhotoRecord, type PhotoSizeName, type PhotoSubjectType, type PhotoUploadQuery } from '../../shared/schemas/photos'
 
 // Each upload is a new image: libvips' operation cache would only hold memory (../shared/STACK.md).
@@ -117,7 +117,7 @@ function replayOf(stored: PhotoRow, query: PhotoUploadQuery): PhotoRecord {
 function recordOf(row: Pick<PhotoRow, 'id' | 'width' | 'height' | 'taken_at' | 'caption' | 'subject_type' | 'subject_id'>): PhotoRecord {
   return {
     id: row.id, width: row.width, height: row.height, takenAt: row.taken_at?.toISOString() ?? null, caption: row.caption,
-    subjectType: row.subject_type, subjectId: row.subject_id, thumbUrl: `/api/photos/${row.id}/thumb`, displayUrl: `/api/photos/${row.id}/display`,
+    subjectType: row.subject_type, subjectId: row.subject_id, ...photoUrls(row.id),
   }
 }
 

@@ -2,12 +2,12 @@
 import type { Member } from '../members'
 import type { ReviewDay, ReviewList, ReviewListDay, ReviewNoteView } from '../../../shared/schemas/review'
 import { liftChecksFor } from '../lift-review'
+import { photoUrls } from '../../../shared/utils/photos'
 
 /** Days still to look at: never reviewed, reopened, or carrying a flag. */
 const openStates = ['waiting', 'reopened', 'flagged']
 
 const iso = (value: unknown) => value instanceof Date ? value.toISOString() : value === null || value === undefined ? null : String(value)
-const photoUrls = (id: string) => ({ thumbUrl: `/api/photos/${id}/thumb`, displayUrl: `/api/photos/${id}/display` })
 
 // MariaDB answers COUNT(*) in a subquery as a number or, past 2^53, a string.
 type ListRow = Omit<ReviewListDay, Counts> & Record<Counts, number | string>
