@@ -118,12 +118,14 @@ describe('the day report', () => {
     expect(messagesTo(homeowner, /^Day report/)).toHaveLength(1)
   })
 
-  it('is not sent for an approved day with no work: the office and the homeowner hear nothing', async () => {
-    const { response, body } = await sync(lead, [{ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id: randomUUID(), jobId: company.jobId, workDate: '2026-11-23', status: 'no_work' } }])
+  it('is not sent for an approved day with no work, while a worked day approved with it is', async () => {
+    const idleId = randomUUID()
+    const worked = dayWithWork(company.jobId, zoneId, crew, '2026-11-20')
+    const { response } = await sync(lead, [{ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id: idleId, jobId: company.jobId, workDate: '2026-11-23', status: 'no_work' } }, ...worked.changes])
     expect(response.status).toBe(200)
-    const idleId = body.results[0].id as string
-    await testDb()('day_sheets').where({ id: idleId }).update({ review_state: 'approved', reviewed_by: company.foreman.userId, reviewed_at: new Date() })
-    await ticks(2)
+    await testDb()('day_sheets').whereIn('id', [idleId, worked.sheetId]).update({ review_state: 'approved', reviewed_by: company.foreman.userId, reviewed_at: new Date() })
+    // The worked day's report arriving shows the outbox has run over both approvals.
+    await messageTo(company.office.email, /^Day report: Fixture walk, 2026-11-20$/)
     expect(await testDb()('mail_outbox').where({ day_sheet_id: idleId }).first()).toBeUndefined()
     expect(messagesTo(company.office.email, /2026-11-23/)).toEqual([])
   })
