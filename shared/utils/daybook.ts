@@ -6,6 +6,9 @@ export type Role = (typeof roles)[number]
 export const jobStatuses = ['planned', 'active', 'on_hold', 'finished'] as const
 export type JobStatus = (typeof jobStatuses)[number]
 
+/** The office's words for a job's status. */
+export const jobStatusLabels: Record<JobStatus, string> = { planned: 'Planned', active: 'Under way', on_hold: 'On hold', finished: 'Finished' }
+
 export const zoneKinds = ['walkway', 'patio', 'driveway', 'wall', 'steps', 'drainage', 'other'] as const
 export type ZoneKind = (typeof zoneKinds)[number]
 
