@@ -31,7 +31,9 @@ export interface RunningServer { url: string, process: ChildProcess, stop: () =>
 export async function startServer(database: string, env: Record<string, string> = {}): Promise<RunningServer> {
   ensureBuild()
   const port = await freePort()
-  const child = spawn(process.execPath, [resolve(root, '.output', 'server', 'index.mjs')], {
+  // BENCH_CPU_PROFILE=<dir> writes the server's CPU profile there when it stops (open it in Chromium's DevTools).
+  const profile = process.env.BENCH_CPU_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${resolve(process.env.BENCH_CPU_PROFILE)}`] : []
+  const child = spawn(process.execPath, [...profile, resolve(root, '.output', 'server', 'index.mjs')], {
     stdio: ['ignore', 'ignore', 'inherit'],
     env: { ...process.env, ...serverEnv(database, env), PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'production' },
   })

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { useBuiltServer } from '../support/server'
 import { createCompany, type FixtureCompany } from '../support/fixtures'
@@ -49,6 +50,20 @@ describe('sync batches', () => {
     const again = await sync(lead, day.changes)
     expect(again.body.results.map((r: { status: string }) => r.status)).toEqual(day.changes.map(() => 'unchanged'))
     expect(await rowsOf(day.sheetId)).toEqual({ sheets: { n: 1 }, entries: { n: 3 }, lifts: { n: 1 }, drops: { n: 1 } })
+  })
+
+  it('stores only the new lift when a day comes again with a lift added after its answer was lost', async () => {
+    const day = dayWithWork(company.jobId, zoneId, crew, '2026-11-16')
+    await sync(lead, day.changes)
+    const lift = structuredClone(day.changes.find(c => c.kind === 'lift')!)
+    Object.assign(lift.record, { id: randomUUID(), looseIn: 3, compactedIn: 2.5 })
+    const again = await sync(lead, [...day.changes, lift])
+    expect(again.response.status).toBe(200)
+    expect(again.body.results.map((r: { status: string }) => r.status)).toEqual([...day.changes.map(() => 'unchanged'), 'applied'])
+    expect(await rowsOf(day.sheetId)).toEqual({ sheets: { n: 1 }, entries: { n: 3 }, lifts: { n: 2 }, drops: { n: 1 } })
+    // Lifts are numbered along the zone: the added one comes next after the day's first.
+    const [first, added] = await testDb()('lifts').where({ day_sheet_id: day.sheetId }).orderBy('sequence').pluck('sequence')
+    expect(added).toBe(first + 1)
   })
 
   it('refuses the same Idempotency-Key with a different body, changing nothing', async () => {

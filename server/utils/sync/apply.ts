@@ -4,7 +4,7 @@ import type { Knex } from 'knex'
 import type { FlagAnswerChange, PhoneChange, SyncAnswer, SyncChange, SyncResult } from '../../../shared/schemas/daybook'
 import type { Member } from '../members'
 import { loadContext, type BatchContext, type BatchProbe } from './context'
-import { fromRow, kindMaps, sameContent, toColumns } from './kinds'
+import { fromRow, kindMaps, naturalKey, sameContent, toColumns } from './kinds'
 import { applyFlagAnswers } from './flag-answers'
 import type { BatchTransaction } from './writer'
 
@@ -70,11 +70,7 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   if (change.baseRevision !== null) {
     return { result: { ...base, status: 'conflict', server: null, message: 'This entry was removed on the server' } }
   }
-  const natural = change.kind === 'day_sheet'
-    ? `${change.record.jobId}|${change.record.workDate}`
-    : change.kind === 'time_entry'
-      ? `${change.record.daySheetId}|${change.record.crewMemberId}`
-      : change.kind === 'material_estimate' ? `${change.record.jobId}|${change.record.material}|${change.record.unit}` : undefined
+  const natural = naturalKey(kind, record as Record<string, unknown>)
   if (natural && (ctx.naturalKeys.has(natural) || claimed.has(natural))) {
     const message = change.kind === 'day_sheet' ? 'This job already has a day sheet for that date' : change.kind === 'time_entry' ? 'This person already has hours on this day' : 'The estimate already has this material in this unit'
     return { result: { ...base, status: 'conflict', server: null, message } }
@@ -107,16 +103,17 @@ async function applyRecordChanges(tx: BatchTransaction, member: Member, changes:
 
   // Inserts in dependency order: day sheets before what hangs on them.
   for (const kind of Object.keys(kindMaps) as SyncChange['kind'][]) {
-    const rows = writes.filter(w => w.kind === kind && w.op === 'insert').map((w) => {
-      const extra: Record<string, unknown> = { id: w.id }
-      if (kind === 'day_sheet') Object.assign(extra, { author_id: member.userId })
-      if (kind === 'material_drop' || kind === 'lift') extra.job_id = (ctx.sheets.get(w.columns.day_sheet_id as string) ?? newSheets.get(w.columns.day_sheet_id as string))?.job_id
+    // The write's columns (made for it by toColumns) become the row.
+    const rows = writes.filter(w => w.kind === kind && w.op === 'insert').map(({ columns: row }) => {
+      Object.assign(row, { revision: 1, created_at: now, updated_at: now })
+      if (kind === 'day_sheet') row.author_id = member.userId
+      if (kind === 'material_drop' || kind === 'lift') row.job_id = (ctx.sheets.get(row.day_sheet_id as string) ?? newSheets.get(row.day_sheet_id as string))?.job_id
       if (kind === 'lift') {
-        const zone = w.columns.zone_id as string
-        extra.sequence = ctx.nextLiftSequence.get(zone) ?? 1
-        ctx.nextLiftSequence.set(zone, (extra.sequence as number) + 1)
+        const sequence = ctx.nextLiftSequence.get(row.zone_id as string) ?? 1
+        ctx.nextLiftSequence.set(row.zone_id as string, sequence + 1)
+        row.sequence = sequence
       }
-      return { ...w.columns, ...extra, revision: 1, created_at: now, updated_at: now }
+      return row
     })
     if (rows.length) statements.push(tx.knex(kindMaps[kind].table).insert(rows))
   }
@@ -127,11 +124,14 @@ async function applyRecordChanges(tx: BatchTransaction, member: Member, changes:
     const ids = writes.filter(w => w.kind === kind && w.op === 'delete').map(w => w.id)
     if (ids.length) statements.push(tx.knex(kindMaps[kind].table).whereIn('id', ids).delete())
   }
-  // One audit line per batch, listing every record it wrote (a week of a crew is a hundred records).
+  // One audit line per batch, naming every record it wrote by operation and kind (a crew's week is a
+  // hundred records): `{ insert: { lift: [id, ...] }, update: { lift: [[id, revision], ...] }, delete: ... }`.
   if (writes.length) {
+    const written: Record<string, Record<string, (string | [string, number])[]>> = {}
+    for (const w of writes) ((written[w.op] ??= {})[w.kind] ??= []).push(w.op === 'update' ? [w.id, w.revision] : w.id)
     statements.push(tx.knex('audit_log').insert({
       organisation_id: member.organisationId, actor_id: member.userId, action: 'sync.batch', subject_type: 'sync_batch', subject_id: batchId,
-      detail: JSON.stringify({ writes: writes.map(w => ({ kind: w.kind, id: w.id, op: w.op, revision: w.revision })) }), created_at: now,
+      detail: JSON.stringify(written), created_at: now,
     }))
   }
   return { results: decisions.map(d => d.result), statements }

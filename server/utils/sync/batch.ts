@@ -37,5 +37,5 @@ async function readBatch(event: H3Event): Promise<Pick<SyncRequest, 'key' | 'has
 
 /** The batch applied in one transaction, or the answer stored for its Idempotency-Key. */
 export async function applyBatch({ member, signedIn, key, hash, changes }: SyncRequest) {
-  return await oncePerKey<SyncAnswer, [Member, BatchProbe]>(signedIn.userId, key, hash, () => Promise.all([member, probeBatch(signedIn, changes.filter((c): c is SyncChange => c.kind !== 'flag_answer'))]), (tx, [confirmed, probe]) => applyChanges(tx, confirmed, changes, probe, randomUUID()))
+  return await oncePerKey<SyncAnswer, [Member, BatchProbe]>(signedIn.userId, key, hash, retry => Promise.all([member, probeBatch(signedIn, changes.filter((c): c is SyncChange => c.kind !== 'flag_answer'), retry)]), (tx, [confirmed, probe]) => applyChanges(tx, confirmed, changes, probe, randomUUID()))
 }

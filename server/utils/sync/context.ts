@@ -1,7 +1,10 @@
 // Everything a batch's decisions need, in two steps (never one query per record):
 // 1. `probeBatch`, on a pooled connection while the batch's transaction opens: one UNION query finds which
 //    records and natural keys already exist, the roster, the lifts' zones and the jobs the member may see.
-//    It locks nothing, so it may run outside the transaction.
+//    It locks nothing, so it may run outside the transaction. On a batch's first attempt it looks up only
+//    the records the phone edited or removed: a record the phone made new (no base revision) is taken as
+//    new, and if it exists after all (a resend, or another phone's sheet for the same day) its unique key
+//    stops the insert and the batch is decided again with every record and natural key looked up.
 // 2. `loadContext`, inside the transaction: only the rows the probe found (records edited or deleted, and
 //    the days that new entries join) are read again, locked, and the decisions use those locked rows.
 // A batch of new records (the usual case) thus costs one read. A record or natural key created by another
@@ -10,7 +13,7 @@ import type { Knex } from 'knex'
 import type { RecordKind, SyncChange } from '../../../shared/schemas/daybook'
 import type { Member, SignedIn } from '../members'
 import { roles, type Role } from '../../../shared/utils/daybook'
-import { kindMaps } from './kinds'
+import { kindMaps, naturalKey, snake } from './kinds'
 import type { BatchTransaction } from './writer'
 
 type Row = Record<string, unknown> & { id: string }
@@ -50,8 +53,11 @@ function parentSheetIds(changes: SyncChange[]): string[] {
 
 interface ProbeRow { k: string, id: string, a: string | number | null, b: string | number | null, c: string | null }
 
-/** One UNION query; every branch answers (k, id, a, b, c). */
-export async function probeBatch(signedIn: SignedIn, changes: SyncChange[]): Promise<BatchProbe> {
+/**
+ * One UNION query; every branch answers (k, id, a, b, c). `lookUpNew` also looks up the records the phone
+ * made new and their natural keys (on a batch's second attempt).
+ */
+export async function probeBatch(signedIn: SignedIn, changes: SyncChange[], lookUpNew: boolean): Promise<BatchProbe> {
   const db = useDb()
   // Columns are named, or raw expressions that already carry their alias.
   const branch = (k: string, table: string, ...columns: (string | Knex.Raw)[]) =>
@@ -61,29 +67,19 @@ export async function probeBatch(signedIn: SignedIn, changes: SyncChange[]): Pro
     }))
   const branches: Knex.QueryBuilder[] = []
 
-  const sheets = ofKind(changes, 'day_sheet')
-  const entries = ofKind(changes, 'time_entry')
-  const estimates = ofKind(changes, 'material_estimate')
   for (const kind of kinds) {
-    const ids = changes.filter(c => c.kind === kind).map(c => c.record.id)
-    if (!ids.length) continue
-    const { table } = kindMaps[kind]
-    // Besides the records themselves, what would break a natural key: one sheet per job and date,
-    // one line of hours per person and day, one estimate line per material and unit.
-    if (kind === 'day_sheet') {
-      branches.push(branch(kind, table, 'job_id', 'work_date').whereIn('id', ids).orWhereIn(['job_id', 'work_date'], sheets.map(c => [c.record.jobId, c.record.workDate])))
-    }
-    else if (kind === 'time_entry') {
-      branches.push(branch(kind, table, 'day_sheet_id', 'crew_member_id').whereIn('id', ids).orWhereIn(['day_sheet_id', 'crew_member_id'], entries.map(c => [c.record.daySheetId, c.record.crewMemberId])))
-    }
-    else if (kind === 'material_estimate') {
-      branches.push(branch(kind, table, 'job_id', 'material', 'unit').whereIn('id', ids).orWhereIn(['job_id', 'material', 'unit'], estimates.map(c => [c.record.jobId, c.record.material, c.record.unit])))
-    }
-    else branches.push(branch(kind, table).whereIn('id', ids))
+    const lookedUp = changes.filter(c => c.kind === kind && (lookUpNew || c.baseRevision !== null || c.op === 'delete'))
+    if (!lookedUp.length) continue
+    // With the records, what would break a natural key: one sheet per job and date, one line of hours per
+    // person and day, one estimate line per material and unit.
+    const natural = lookUpNew ? kindMaps[kind].natural : undefined
+    const query = branch(kind, kindMaps[kind].table, ...(natural ?? []).map(snake)).whereIn('id', lookedUp.map(c => c.record.id))
+    if (natural) query.orWhereIn(natural.map(snake), lookedUp.map(c => natural.map(key => (c.record as Record<string, unknown>)[key])) as readonly (string | number)[][])
+    branches.push(query)
   }
   const parents = parentSheetIds(changes)
   if (parents.length) branches.push(branch('parent', 'day_sheets', 'job_id').whereIn('id', parents))
-  const crewIds = unique(entries.map(c => c.record.crewMemberId))
+  const crewIds = unique(ofKind(changes, 'time_entry').map(c => c.record.crewMemberId))
   if (crewIds.length) branches.push(branch('crew', 'crew_members').whereIn('id', crewIds).where('organisation_id', signedIn.organisationId))
   const zoneIds = unique(ofKind(changes, 'lift').map(c => c.record.zoneId))
   if (zoneIds.length) branches.push(branch('zone_of_lift', 'zones', 'job_id', db.raw('(SELECT MAX(l.sequence) FROM lifts AS l WHERE l.zone_id = zones.id) AS b')).whereIn('id', zoneIds))
@@ -123,8 +119,8 @@ export async function probeBatch(signedIn: SignedIn, changes: SyncChange[]): Pro
     else {
       const kind = row.k as RecordKind
       if (batchIds[kind]?.has(row.id)) probe.found[kind].add(row.id)
-      if (kind === 'day_sheet' || kind === 'time_entry') probe.naturalKeys.set(`${row.a}|${row.b}`, row.id)
-      if (kind === 'material_estimate') probe.naturalKeys.set(`${row.a}|${row.b}|${row.c}`, row.id)
+      const natural = row.a === null ? undefined : naturalKey(kind, [row.a, row.b, row.c])
+      if (natural) probe.naturalKeys.set(natural, row.id)
     }
   }
   return probe

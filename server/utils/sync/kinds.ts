@@ -12,37 +12,49 @@ interface KindMap {
   fixed: string[]
   /** Record keys in the order the phone knows them. */
   keys: string[]
+  /** Record keys that no two rows may share (a unique key of the table besides the id). */
+  natural?: string[]
 }
 
 // Listed in the order rows are inserted: what others refer to comes first.
 export const kindMaps: Record<RecordKind, KindMap> = {
   zone: { table: 'zones', fixed: ['jobId'], keys: ['id', 'jobId', 'name', 'kind', 'designBaseDepthIn', 'areaSqFt', 'lengthFt', 'baseExtensionIn', 'notes'] },
-  material_estimate: { table: 'material_estimates', fixed: ['jobId'], keys: ['id', 'jobId', 'material', 'quantity', 'unit'] },
+  material_estimate: { table: 'material_estimates', fixed: ['jobId'], keys: ['id', 'jobId', 'material', 'quantity', 'unit'], natural: ['jobId', 'material', 'unit'] },
   day_sheet: {
     table: 'day_sheets',
     fixed: ['jobId', 'workDate'],
+    natural: ['jobId', 'workDate'],
     keys: ['id', 'jobId', 'workDate', 'status', 'startedAt', 'finishedAt', 'weatherConditions', 'rainIn', 'temperatureF', 'hoursLost', 'hoursLostReason', 'workDone', 'siteNotes', 'locateTicket'],
   },
-  time_entry: { table: 'time_entries', fixed: ['daySheetId', 'crewMemberId'], keys: ['id', 'daySheetId', 'crewMemberId', 'hours'] },
+  time_entry: { table: 'time_entries', fixed: ['daySheetId', 'crewMemberId'], keys: ['id', 'daySheetId', 'crewMemberId', 'hours'], natural: ['daySheetId', 'crewMemberId'] },
   material_drop: { table: 'material_drops', fixed: ['daySheetId'], keys: ['id', 'daySheetId', 'material', 'quantity', 'unit', 'stagedAt', 'ticketNumber'] },
   lift: { table: 'lifts', fixed: ['daySheetId', 'zoneId'], keys: ['id', 'daySheetId', 'zoneId', 'material', 'looseIn', 'compactedIn', 'passes', 'compactorClass', 'moistureNote'] },
 }
 
+// Each kind's record keys with their column names, worked out once.
+const keyColumns = Object.fromEntries(Object.entries(kindMaps).map(([kind, map]) => [kind, map.keys.map(key => [key, snake(key)])])) as Record<RecordKind, [string, string][]>
+
 /** The columns a record writes (without revision and bookkeeping). */
 export function toColumns<K extends RecordKind>(kind: K, record: RecordOf[K]): Row {
   const row: Row = {}
-  for (const key of kindMaps[kind].keys) row[snake(key)] = (record as Row)[key] ?? null
+  for (const [key, column] of keyColumns[kind]) row[column] = (record as Row)[key] ?? null
   return row
 }
 
 /** A row as the phone knows it: the record's keys, times as HH:MM. */
 export function fromRow(kind: RecordKind, row: Row): Row {
   const record: Row = {}
-  for (const key of kindMaps[kind].keys) {
-    const value = row[snake(key)]
+  for (const [key, column] of keyColumns[kind]) {
+    const value = row[column]
     record[key] = typeof value === 'string' && /^\d\d:\d\d:\d\d$/.test(value) ? value.slice(0, 5) : value ?? null
   }
   return record
+}
+
+/** A record's natural key as one string (`job|date` of a day sheet), or undefined for kinds without one. */
+export function naturalKey(kind: RecordKind, values: unknown[] | Row): string | undefined {
+  const keys = kindMaps[kind].natural
+  return keys && (Array.isArray(values) ? values.slice(0, keys.length) : keys.map(key => values[key])).join('|')
 }
 
 /** Whether two versions of a record say the same thing (missing and null are the same). */

@@ -1,14 +1,14 @@
 // Idempotency for sync requests: the same Idempotency-Key with the same body gets the stored answer,
 // with another body a 422. The receipt is written in the batch's own transaction, so a batch whose
 // answer was lost on the way to the phone is answered again, never applied twice.
-import { createHash } from 'node:crypto'
+import { hash as digest } from 'node:crypto'
 import type { Knex } from 'knex'
 import { inBatchTransaction, type BatchTransaction } from './writer'
 
 export interface StoredAnswer<T> { statusCode: number, body: T }
 
 export function requestHash(rawBody: string): string {
-  return createHash('sha256').update(rawBody).digest('hex')
+  return digest('sha256', rawBody)
 }
 
 async function storedAnswer<T>(db: Knex | Knex.Transaction, userId: string, key: string, hash: string): Promise<StoredAnswer<T> | undefined> {
@@ -20,22 +20,23 @@ async function storedAnswer<T>(db: Knex | Knex.Transaction, userId: string, key:
   return { statusCode: receipt.status_code, body: typeof receipt.response === 'string' ? JSON.parse(receipt.response) : receipt.response }
 }
 
-/** How often a batch is decided again after losing a race for a record's key to another batch. */
-const attempts = 3
+/** How many times a batch is decided: once taking new records as new, then up to three times again after an insert hit a unique key. */
+const attempts = 4
 
 /**
  * Runs `work` once per Idempotency-Key, in one transaction with the receipt. `prepare` (reads that lock
  * nothing) runs on another pooled connection while the transaction opens, and its answer is handed to
- * `work`; both run again when another batch inserted one of the same records or natural keys meanwhile.
+ * `work`; both run again, told that it is a retry, when an insert hit a unique key: a record or natural
+ * key that `prepare` did not look up, or that another batch inserted meanwhile.
  * `work` decides and answers the statements that write its decisions: they go to the database with the
  * receipt in one round trip.
  */
-export async function oncePerKey<T, P>(userId: string, key: string, hash: string, prepare: () => Promise<P>, work: (tx: BatchTransaction, prepared: P) => Promise<{ body: T, statements: Knex.QueryBuilder[] }>): Promise<StoredAnswer<T> & { replayed: boolean }> {
+export async function oncePerKey<T, P>(userId: string, key: string, hash: string, prepare: (retry: boolean) => Promise<P>, work: (tx: BatchTransaction, prepared: P) => Promise<{ body: T, statements: Knex.QueryBuilder[] }>): Promise<StoredAnswer<T> & { replayed: boolean }> {
   // No look-up first: a repeat is rare, and the receipt's primary key catches it when the batch's own
   // receipt is written (the repeat's work is then rolled back and the stored answer returned).
   for (let attempt = 1; ; attempt++) {
     try {
-      const prepared = prepare()
+      const prepared = prepare(attempt > 1)
       // Awaited inside the transaction; a failure before then must not go unhandled.
       prepared.catch(() => {})
       const body = await inBatchTransaction(async (tx) => {
@@ -53,8 +54,8 @@ export async function oncePerKey<T, P>(userId: string, key: string, hash: string
       // A repeat of a request already answered (or arriving at the same moment): answer as the first did.
       const winner = await storedAnswer<T>(useDb(), userId, key, hash)
       if (winner) return { ...winner, replayed: true }
-      // Another batch created one of these records (or took a natural key) after they were looked up:
-      // decide again against what is now on the server.
+      // One of these records or natural keys exists (not looked up, or created by another batch after it
+      // was): decide again against what is now on the server.
       if (attempt >= attempts) throw error
     }
   }
