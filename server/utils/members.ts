@@ -17,41 +17,36 @@ export type SignedIn = Pick<Member, 'userId' | 'organisationId'>
  * change takes effect at once; 401 without a live membership, 403 when the role is not among `roles`.
  */
 export async function requireMember(event: H3Event, roles?: readonly Role[]): Promise<Member> {
-  return await (await startRequireMember(event, roles)).member
-}
-
-/**
- * requireMember for a route with work to do while the membership is read: the session is checked at once
- * (401 without one, before anything else is done), then the membership query starts and is handed back
- * unawaited. Awaiting `member` gives what requireMember gives, and the route must await it before it
- * answers anything else.
- */
-export async function startRequireMember(event: H3Event, roles?: readonly Role[]): Promise<{ member: Promise<Member>, signedIn: SignedIn }> {
   const known = event.context.member as Member | undefined
-  const signedIn: SignedIn = known ?? await signedInUser(event)
-  const loading = known ? Promise.resolve(known) : loadMember(event, signedIn)
-  const member = loading.then((member) => {
-    event.context.member = member
-    if (roles && !roles.includes(member.role)) {
-      throw createError({ statusCode: 403, statusMessage: 'Your role cannot do this' })
-    }
-    return member
-  })
-  // Awaited by the caller, possibly after other work: a refusal must not count as unhandled meanwhile.
-  member.catch(() => {})
-  return { member, signedIn: { userId: signedIn.userId, organisationId: signedIn.organisationId } }
+  const user = known ?? await signedInUser(event)
+  const member = known ?? await confirmMember(event, user, await membershipOf(user).first(membershipColumns))
+  if (roles && !roles.includes(member.role)) {
+    throw createError({ statusCode: 403, statusMessage: 'Your role cannot do this' })
+  }
+  return member
 }
 
-async function loadMember(event: H3Event, user: SignedIn): Promise<Member> {
-  const row = await useDb()('memberships as m')
+/** The user's live membership of the organisation they signed in to (select `membershipColumns`). */
+export function membershipOf(user: SignedIn) {
+  return useDb()('memberships as m')
     .join('users as u', 'u.id', 'm.user_id')
     .where({ 'm.user_id': user.userId, 'm.organisation_id': user.organisationId, 'm.active': true })
-    .first('m.id as membershipId', 'm.role', 'u.name')
+}
+export const membershipColumns = ['m.id as membershipId', 'm.role', 'u.name']
+export type MembershipRow = Pick<Member, 'membershipId' | 'role' | 'name'>
+
+/**
+ * The member, from the row `membershipOf` found (a route may read it along with its own queries), and
+ * remembered for the rest of the request; without one the sign-in has ended: 401.
+ */
+export async function confirmMember(event: H3Event, user: SignedIn, row: MembershipRow | undefined): Promise<Member> {
   if (!row) {
     await clearUserSession(event)
     throw createError({ statusCode: 401, statusMessage: 'Your sign-in has ended; sign in again' })
   }
-  return { userId: user.userId, organisationId: user.organisationId, membershipId: row.membershipId, role: row.role, name: row.name }
+  const member: Member = { userId: user.userId, organisationId: user.organisationId, membershipId: row.membershipId, role: row.role, name: row.name }
+  event.context.member = member
+  return member
 }
 
 // Unsealing the session cookie takes several WebCrypto calls on every request. An unsealed session is
@@ -60,7 +55,8 @@ async function loadMember(event: H3Event, user: SignedIn): Promise<Member> {
 const unsealed = new Map<string, Session & { validUntil: number }>()
 const unsealedLimit = 1000
 
-async function signedInUser(event: H3Event): Promise<SignedIn> {
+/** Who the session cookie says is signed in (401 without a session), before their membership is read. */
+export async function signedInUser(event: H3Event): Promise<SignedIn> {
   const { name = 'nuxt-session', maxAge } = useRuntimeConfig().session as { name?: string, maxAge?: number }
   // h3 reads a session header before the cookie: such requests always take the full path.
   const sealed = getRequestHeader(event, `x-${name.toLowerCase()}-session`) === undefined ? parseCookies(event)[name] : undefined

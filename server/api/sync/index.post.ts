@@ -1,5 +1,6 @@
 export default defineEventHandler(async (event) => {
-  // requireMember and the batch checked with the shared schema (the body is checked while the membership is read).
+  // The session and the batch checked with the shared schema; the membership is read with the batch's
+  // context and confirmed before anything is decided.
   const request = await readSyncRequest(event)
   const answer = await applyBatch(request)
   setResponseStatus(event, answer.statusCode)

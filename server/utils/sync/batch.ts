@@ -3,27 +3,27 @@
 import { randomUUID } from 'node:crypto'
 import type { H3Event } from 'h3'
 import { idempotencyKey, syncBatch, type PhoneChange, type SyncAnswer, type SyncChange } from '../../../shared/schemas/daybook'
-import { startRequireMember, type Member, type SignedIn } from '../members'
+import { confirmMember, requireMember, signedInUser, type SignedIn } from '../members'
 import { readBodyWith } from '../validation'
 import { applyChanges } from './apply'
 import { probeBatch, type BatchProbe } from './context'
 import { assertDistinctRecords, oncePerKey, requestHash } from './receipts'
 
-interface SyncRequest { member: Promise<Member>, signedIn: SignedIn, key: string, hash: string, changes: PhoneChange[] }
+interface SyncRequest { event: H3Event, signedIn: SignedIn, key: string, hash: string, changes: PhoneChange[] }
 
 /**
- * requireMember, then the Idempotency-Key and the batch checked with the shared schema. The membership
- * query runs while the body is checked and the batch's context is read; a refused member (401, 403)
- * still wins over a bad body, and nothing is written before the membership is confirmed.
+ * The session, then the Idempotency-Key and the batch checked with the shared schema. The membership is
+ * read with the batch's context (applyBatch) and confirmed before anything is decided; with a bad body it
+ * is read first, so that a refused member (401) still wins over the body's error.
  */
 export async function readSyncRequest(event: H3Event): Promise<SyncRequest> {
-  const { member, signedIn } = await startRequireMember(event)
+  const signedIn = await signedInUser(event)
   const input = await readBatch(event).then(batch => ({ batch }), (error: unknown) => ({ error }))
   if ('error' in input) {
-    await member
+    await requireMember(event)
     throw input.error
   }
-  return { member, signedIn, ...input.batch }
+  return { event, signedIn, ...input.batch }
 }
 
 async function readBatch(event: H3Event): Promise<Pick<SyncRequest, 'key' | 'hash' | 'changes'>> {
@@ -36,6 +36,10 @@ async function readBatch(event: H3Event): Promise<Pick<SyncRequest, 'key' | 'has
 }
 
 /** The batch applied in one transaction, or the answer stored for its Idempotency-Key. */
-export async function applyBatch({ member, signedIn, key, hash, changes }: SyncRequest) {
-  return await oncePerKey<SyncAnswer, [Member, BatchProbe]>(signedIn.userId, key, hash, retry => Promise.all([member, probeBatch(signedIn, changes.filter((c): c is SyncChange => c.kind !== 'flag_answer'), retry)]), (tx, [confirmed, probe]) => applyChanges(tx, confirmed, changes, probe, randomUUID()))
+export async function applyBatch({ event, signedIn, key, hash, changes }: SyncRequest) {
+  const records = changes.filter((c): c is SyncChange => c.kind !== 'flag_answer')
+  return await oncePerKey<SyncAnswer, BatchProbe>(signedIn.userId, key, hash, retry => probeBatch(signedIn, records, retry), async (tx, probe) => {
+    const member = await confirmMember(event, signedIn, probe.member)
+    return await applyChanges(tx, member, changes, probe, randomUUID())
+  })
 }

@@ -1,6 +1,7 @@
 // Everything a batch's decisions need, in two steps (never one query per record):
-// 1. `probeBatch`, on a pooled connection while the batch's transaction opens: one UNION query finds which
-//    records and natural keys already exist, the roster, the lifts' zones and the jobs the member may see.
+// 1. `probeBatch`, on a pooled connection while the batch's transaction opens: one UNION query reads the
+//    sender's membership and finds which records and natural keys already exist, the roster, the lifts'
+//    zones and the jobs the member may see.
 //    It locks nothing, so it may run outside the transaction. On a batch's first attempt it looks up only
 //    the records the phone edited or removed: a record the phone made new (no base revision) is taken as
 //    new, and if it exists after all (a resend, or another phone's sheet for the same day) its unique key
@@ -11,7 +12,7 @@
 // batch after the probe hits a unique key when inserted, and the whole batch is decided again (receipts.ts).
 import type { Knex } from 'knex'
 import type { RecordKind, SyncChange } from '../../../shared/schemas/daybook'
-import type { Member, SignedIn } from '../members'
+import { membershipOf, type Member, type MembershipRow, type SignedIn } from '../members'
 import { roles, type Role } from '../../../shared/utils/daybook'
 import { kindMaps, naturalKey, snake } from './kinds'
 import type { BatchTransaction } from './writer'
@@ -30,6 +31,8 @@ export interface BatchContext {
 }
 
 export interface BatchProbe {
+  /** The sender's live membership, if any (one at most: a user has one membership per organisation), confirmed with confirmMember before anything is decided. */
+  member: MembershipRow | undefined
   /** Ids of the batch's records that exist on the server, by kind. */
   found: Record<SyncChange['kind'], Set<string>>
   /** Day sheets on the server that entries of the batch join (not sheets of the batch itself). */
@@ -65,7 +68,9 @@ export async function probeBatch(signedIn: SignedIn, changes: SyncChange[], look
       const column = columns[i]
       return column === undefined ? db.raw(`NULL AS ${alias}`) : typeof column === 'string' ? `${table}.${column} AS ${alias}` : column
     }))
-  const branches: Knex.QueryBuilder[] = []
+  const branches: Knex.QueryBuilder[] = [
+    membershipOf(signedIn).select(db.raw('? AS k', ['member']), 'm.id AS id', 'm.role AS a', 'u.name AS b', db.raw('NULL AS c')),
+  ]
 
   for (const kind of kinds) {
     const lookedUp = changes.filter(c => c.kind === kind && (lookUpNew || c.baseRevision !== null || c.op === 'delete'))
@@ -86,7 +91,7 @@ export async function probeBatch(signedIn: SignedIn, changes: SyncChange[], look
   // The jobs the batch names, directly or through the days its entries join.
   const jobIds = unique(changes.map(c => (c.record as { jobId?: string }).jobId))
   // One branch per role, from the same rule as every other route (visibleJobs reads only the organisation,
-  // the user and the role); the member's confirmed role picks one in loadContext.
+  // the user and the role); the member's role, read in the same query, picks one in loadContext.
   for (const role of jobIds.length || parents.length ? roles : []) {
     const as: Member = { ...signedIn, role, membershipId: '', name: '' }
     branches.push(visibleJobs(as).select(db.raw('? AS k', [`job:${role}`]), 'jobs.id AS id', db.raw('NULL AS a'), db.raw('NULL AS b'), db.raw('NULL AS c')).andWhere((q) => {
@@ -95,10 +100,11 @@ export async function probeBatch(signedIn: SignedIn, changes: SyncChange[], look
     }))
   }
 
-  const [first, ...rest] = branches
-  const rows: ProbeRow[] = first ? await (rest.length ? first.unionAll(rest, true) : first) : []
+  const [first, ...rest] = branches as [Knex.QueryBuilder, ...Knex.QueryBuilder[]]
+  const rows: ProbeRow[] = await (rest.length ? first.unionAll(rest, true) : first)
 
   const probe: BatchProbe = {
+    member: undefined,
     found: Object.fromEntries(kinds.map(kind => [kind, new Set<string>()])) as BatchProbe['found'],
     parentSheets: new Set(),
     naturalKeys: new Map(),
@@ -109,7 +115,8 @@ export async function probeBatch(signedIn: SignedIn, changes: SyncChange[], look
   }
   const batchIds = Object.fromEntries(kinds.map(kind => [kind, new Set(changes.filter(c => c.kind === kind).map(c => c.record.id))])) as Record<RecordKind, Set<string>>
   for (const row of rows) {
-    if (row.k === 'parent') probe.parentSheets.add(row.id)
+    if (row.k === 'member') probe.member = { membershipId: row.id, role: row.a as Role, name: String(row.b) }
+    else if (row.k === 'parent') probe.parentSheets.add(row.id)
     else if (row.k === 'crew') probe.crew.add(row.id)
     else if (row.k.startsWith('job:')) probe.visibleJobs[row.k.slice(4) as Role].add(row.id)
     else if (row.k === 'zone_of_lift') {
