@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto'
+import dayjs from 'dayjs'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { fetch } from '@nuxt/test-utils/e2e'
 import { useBuiltServer } from '../support/server'
@@ -15,7 +16,8 @@ let other: FixtureCompany
 let zoneId: string
 let crew: string[]
 const as = {} as Record<'lead' | 'foreman' | 'office' | 'otherForeman' | 'otherLead' | 'otherCompanyForeman' | 'otherCompanyOffice', Cookie>
-let nextDate = 1
+// Each test's day comes after the last one's.
+let nextDate = 0
 
 beforeAll(async () => {
   company = await createCompany('Review Hardscapes')
@@ -32,7 +34,7 @@ beforeAll(async () => {
 
 /** A day logged by the crew lead through sync, as the phone sends it. */
 async function loggedDay() {
-  const day = dayWithWork(company.jobId, zoneId, crew, `2026-10-${String(nextDate++).padStart(2, '0')}`)
+  const day = dayWithWork(company.jobId, zoneId, crew, dayjs('2026-10-01').add(nextDate++, 'day').format('YYYY-MM-DD'))
   const { body } = await sync(as.lead, day.changes)
   expect(body.results.every((r: { status: string }) => r.status === 'applied')).toBe(true)
   const lift = day.changes.find(c => c.kind === 'lift')!
