@@ -73,7 +73,7 @@ describe('the job page', () => {
     expect(await page.getByTestId('depth-profile').innerText()).toMatch(/3 in of 6 in design: 3 in short/)
     expect(await page.locator('[data-material-state="short"]').innerText()).toMatch(/Short by 1 ton/)
     // The days, each with its status and hours: 3 crew × 8 h on the full day, the rain-out sent home.
-    expect(await page.getByTestId('job-day-2026-11-02').innerText()).toMatch(/Full day[\s\S]*3 on site · 24 person-hours · 1 lifts · 1 drops/)
+    expect(await page.getByTestId('job-day-2026-11-02').innerText()).toMatch(/Full day[\s\S]*3 on site · 24 person-hours · 1 lift · 1 drop/)
     expect(await page.getByTestId('job-day-2026-11-03').innerText()).toMatch(/Rain-out[\s\S]*3 on site · 0 person-hours/)
     expect(await checkAccessibility(page), 'the job page').toEqual([])
   })
