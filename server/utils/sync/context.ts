@@ -38,7 +38,7 @@ export interface BatchProbe {
   /** Day sheets on the server that entries of the batch join (not sheets of the batch itself). */
   parentSheets: Set<string>
   naturalKeys: Map<string, string>
-  /** The batch's jobs each role would see (the probe runs before the member's role is confirmed). */
+  /** The batch's jobs each role would see (the member's role is read in the same query). */
   visibleJobs: Record<Role, Set<string>>
   zones: Map<string, Row>
   crew: Set<string>
