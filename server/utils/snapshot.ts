@@ -57,9 +57,13 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
 async function openFlagsOf(jobIds: string[]): Promise<Pick<Snapshot, 'reviewFlags' | 'flagAnswers'>> {
   if (!jobIds.length) return { reviewFlags: [], flagAnswers: [] }
   const db = useDb()
+  // Whose hours or which photo, so the phone can name the flagged record with no signal.
   const flags: SnapshotFlag[] = await db('review_notes as f').join('day_sheets as s', 's.id', 'f.day_sheet_id').leftJoin('users as u', 'u.id', 'f.author_id')
+    .leftJoin('time_entries as t', function () { this.on('t.id', 'f.subject_id').andOnVal('f.subject_type', 'time_entry') }).leftJoin('crew_members as c', 'c.id', 't.crew_member_id')
+    .leftJoin('photos as p', function () { this.on('p.id', 'f.subject_id').andOnVal('f.subject_type', 'photo') })
     .whereIn('f.job_id', jobIds).where('f.kind', 'flag').whereNull('f.resolved_at').orderBy('f.created_at')
-    .select('f.id', 'f.job_id as jobId', 'f.day_sheet_id as daySheetId', 's.work_date as workDate', 'f.subject_type as subjectType', 'f.subject_id as subjectId', 'f.reason', 'f.body', 'u.name as authorName', 'f.created_at as createdAt')
+    .select('f.id', 'f.job_id as jobId', 'f.day_sheet_id as daySheetId', 's.work_date as workDate', 'f.subject_type as subjectType', 'f.subject_id as subjectId', 'f.reason', 'f.body', 'u.name as authorName', 'f.created_at as createdAt',
+      'c.name as crewMemberName', 't.hours', 'p.caption as photoCaption', 'p.subject_type as photoOf')
   const answers: { id: string, flagId: string, body: string }[] = flags.length
     ? await db('review_notes').whereIn('parent_id', flags.map(f => f.id)).where('kind', 'answer').orderBy('created_at').select('id', 'parent_id as flagId', 'body')
     : []

@@ -48,6 +48,12 @@ export interface SnapshotFlag {
   body: string | null
   authorName: string | null
   createdAt: string
+  /** Whose hours (a flag on a time entry), as the server had them when the phone last fetched. */
+  crewMemberName: string | null
+  hours: number | null
+  /** Which photo (a flag on a photo): its caption and what it was taken of. */
+  photoCaption: string | null
+  photoOf: SnapshotPhoto['subjectType'] | null
 }
 
 export type SnapshotRecord = Record<string, unknown> & { id: string, revision: number }

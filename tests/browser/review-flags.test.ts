@@ -1,13 +1,12 @@
 // The foreman's night review against the crew lead's phone, in real Chromium against the production
 // build: the foreman flags a lift; the flag reaches the phone; offline, the crew lead answers with a
 // new photo; back online the answer reaches the foreman, who resolves the flag and approves the day.
-import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { fetch, url } from '@nuxt/test-utils/e2e'
-import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { url } from '@nuxt/test-utils/e2e'
+import type { Browser, BrowserContext, Locator, Page } from 'playwright-core'
 import { useBuiltServer } from '../support/server'
 import { createCompany, fixturePassword, type FixtureCompany } from '../support/fixtures'
-import { addZoneAndCrew, dayWithWork, sync } from '../support/daybook'
+import { addZoneAndCrew, dayWithWork, sync, uploadPhoto } from '../support/daybook'
 import { testDb } from '../support/db'
 import { signIn } from '../support/http'
 import { phoneJpeg } from '../support/images'
@@ -24,17 +23,12 @@ let company: FixtureCompany
 let sheetId: string
 let liftId: string
 let flagId = ''
+let hoursId: string
+let dayPhotoId: string
 
 const yesterday = () => new Date(Date.now() - 86_400_000).toISOString().slice(0, 10)
 const outboxCount = () => lead.getByTestId('outbox-count').innerText()
 
-
-async function upload(cookie: string, subjectType: string, subjectId: string, caption: string) {
-  const response = await fetch(`/api/photos/${randomUUID()}?subjectType=${subjectType}&subjectId=${subjectId}&caption=${encodeURIComponent(caption)}`, {
-    method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 640, height: 480 })), headers: { 'content-type': 'image/jpeg', cookie },
-  })
-  expect(response.status).toBe(201)
-}
 
 beforeAll(async () => {
   company = await createCompany('Night Review Paving')
@@ -44,9 +38,10 @@ beforeAll(async () => {
   const day = dayWithWork(company.jobId, zoneId, crew, yesterday())
   sheetId = day.sheetId
   liftId = day.changes.find(c => c.kind === 'lift')!.record.id as string
+  hoursId = day.changes.find(c => c.kind === 'time_entry' && 'crewMemberId' in c.record && c.record.crewMemberId === crew[0])!.record.id as string
   expect((await sync(cookie, day.changes)).response.status).toBe(200)
-  await upload(cookie, 'lift', liftId, 'First lift, plated')
-  await upload(cookie, 'day_sheet', sheetId, 'Front walk at noon')
+  await uploadPhoto(cookie, 'lift', liftId, 'First lift, plated')
+  dayPhotoId = await uploadPhoto(cookie, 'day_sheet', sheetId, 'Front walk at noon')
 
   browser = await launchBrowser()
   foremanContext = await phoneContext(browser, { baseURL: url('/') })
@@ -109,7 +104,7 @@ describe('a flag from the foreman to the crew lead\'s phone and back', () => {
     expect(await checkAccessibility(foreman), 'the flag form').toEqual([])
     await form.getByTestId('flag-submit').click()
     const open = foreman.locator('[data-testid^="review-flag-"]')
-    await open.getByText('Open flag: Compact it again').waitFor()
+    await open.getByText('Open flag on Front walk lift 1: Compact it again').waitFor()
     flagId = (await open.getAttribute('data-testid'))?.replace('review-flag-', '') ?? ''
     expect(await foreman.getByTestId('review-state').innerText()).toBe('Flagged')
     expect(await foreman.getByTestId('approve-day').isDisabled()).toBe(true)
@@ -162,7 +157,7 @@ describe('a flag from the foreman to the crew lead\'s phone and back', () => {
     await foreman.getByTestId('photo-viewer').waitFor()
     await foreman.keyboard.press('Escape')
     await foreman.getByTestId(`resolve-${flagId}`).click()
-    await foreman.locator(`[data-testid="review-flag-${flagId}"]`).getByText('Resolved flag: Compact it again').waitFor()
+    await foreman.locator(`[data-testid="review-flag-${flagId}"]`).getByText('Resolved flag on Front walk lift 1: Compact it again').waitFor()
     await expect.poll(() => foreman.getByTestId('review-state').innerText()).toBe('Waiting for review')
     await foreman.getByTestId('approve-day').click()
     await expect.poll(() => foreman.getByTestId('review-state').innerText()).toMatch(/^Approved/)
@@ -198,5 +193,49 @@ describe('a flag from the foreman to the crew lead\'s phone and back', () => {
     await expect.poll(phoneState, { timeout: 15_000 }).toBe('reopened')
     await lead.getByText('Front walk · 3/4 in crushed stone').waitFor()
     expect(await lead.getByText('The foreman approved this day. To change it, ask them to reopen it.').count()).toBe(0)
+  })
+})
+
+describe('flags that name whose hours and which photo', () => {
+  const loaded = (image: Locator) => image.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)
+
+  it('shows the foreman which crew member\'s hours and which photo each flag is on', async () => {
+    await foreman.reload()
+    await waitForApp(foreman)
+    await foreman.getByTestId(`flag-time_entry-${hoursId}`).click()
+    const hoursForm = foreman.getByTestId(`flag-form-${hoursId}`)
+    await hoursForm.getByText('Flag Crew 1\'s hours (8 h): why?').waitFor()
+    await hoursForm.getByLabel('Hours look wrong').check()
+    await hoursForm.getByTestId('flag-submit').click()
+    await foreman.getByText('Open flag on Crew 1\'s hours (8 h): Hours look wrong').waitFor()
+
+    await foreman.getByRole('button', { name: 'Flag the photo “Front walk at noon”' }).click()
+    const photoForm = foreman.getByTestId(`flag-form-${dayPhotoId}`)
+    await photoForm.getByLabel('Photo does not show it').check()
+    await photoForm.getByTestId('flag-submit').click()
+    const photoFlag = foreman.locator('[data-testid^="review-flag-"]').filter({ hasText: 'Open flag on the photo “Front walk at noon”: Photo does not show it' })
+    await photoFlag.waitFor()
+    const thumb = photoFlag.getByTestId('flag-subject-thumb')
+    expect(await thumb.getAttribute('src')).toBe(`/api/photos/${dayPhotoId}/thumb`)
+    await expect.poll(() => loaded(thumb)).toBe(true)
+    expect(await checkAccessibility(foreman), 'the day with flags on hours and on a photo').toEqual([])
+  })
+
+  it('names the crew member, the hours and the photo on the crew lead\'s phone, also with no signal', async () => {
+    await lead.reload()
+    await waitForApp(lead)
+    const hours = lead.locator('article[data-testid^="flag-"]').filter({ hasText: 'Crew 1\'s hours: 8 h · Hours look wrong' })
+    const photo = lead.locator('article[data-testid^="flag-"]').filter({ hasText: 'Photo: “Front walk at noon” · Photo does not show it' })
+    await hours.waitFor()
+    await photo.waitFor()
+    await expect.poll(() => loaded(photo.locator('[data-testid^="flag-photo-thumb-"]'))).toBe(true)
+    expect(await checkAccessibility(lead), 'the day sheet with flags on hours and on a photo').toEqual([])
+
+    await leadContext.setOffline(true)
+    await lead.reload()
+    await waitForApp(lead)
+    await hours.waitFor()
+    await photo.waitFor()
+    await leadContext.setOffline(false)
   })
 })

@@ -1,7 +1,9 @@
 // Phone-shaped changes for the sync route, and helpers to send them.
 import { randomUUID } from 'node:crypto'
+import { fetch } from '@nuxt/test-utils/e2e'
 import { call, type Cookie } from './http'
 import { testDb } from './db'
+import { phoneJpeg } from './images'
 
 export async function addZoneAndCrew(organisationId: string, jobId: string) {
   const zoneId = randomUUID()
@@ -27,4 +29,14 @@ export function dayWithWork(jobId: string, zoneId: string, crew: string[], workD
 export async function sync(cookie: Cookie, changes: unknown[], key = randomUUID()) {
   const response = await call('POST', '/api/sync', { cookie, body: { changes }, headers: { 'idempotency-key': key } })
   return { response, key, body: await response.json() }
+}
+
+/** A 640 × 480 photo of a record, uploaded as the phone does; answers the new photo's id. */
+export async function uploadPhoto(cookie: Cookie, subjectType: string, subjectId: string, caption: string): Promise<string> {
+  const id = randomUUID()
+  const response = await fetch(`/api/photos/${id}?subjectType=${subjectType}&subjectId=${subjectId}&caption=${encodeURIComponent(caption)}`, {
+    method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 640, height: 480 })), headers: { 'content-type': 'image/jpeg', cookie },
+  })
+  if (response.status !== 201) throw new Error(`the photo upload answered ${response.status}`)
+  return id
 }
