@@ -1,13 +1,14 @@
 // The job page for the foreman in real Chromium: the figures against the bid, the burn chart with
 // its weather day, the depth profile and the materials; the crew lead's phone checking a lift as it
-// is typed in; and no job page for a crew lead.
+// is typed in; the job's photos in the full-size viewer; and no job page for a crew lead.
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { url } from '@nuxt/test-utils/e2e'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { useBuiltServer } from '../support/server'
 import { createCompany, fixturePassword, type FixtureCompany } from '../support/fixtures'
-import { addZoneAndCrew } from '../support/daybook'
+import { addZoneAndCrew, uploadPhoto } from '../support/daybook'
+import { signIn } from '../support/http'
 import { testDb } from '../support/db'
 import { checkAccessibility, launchBrowser, phoneContext, signInInBrowser, waitForApp } from '../support/browser'
 
@@ -17,6 +18,7 @@ let browser: Browser
 let company: FixtureCompany
 let zoneId: string
 let baseUrl: string
+let photoIds: string[]
 const contexts: BrowserContext[] = []
 
 async function phoneOf(email: string): Promise<Page> {
@@ -46,6 +48,8 @@ beforeAll(async () => {
   await db('lifts').insert({ id: randomUUID(), day_sheet_id: full, job_id: company.jobId, zone_id: zoneId, sequence: 1, material: '3/4 in crushed stone', loose_in: 4, compacted_in: 3, passes: 4, compactor_class: 'plate-medium' })
   await db('material_estimates').insert({ id: randomUUID(), job_id: company.jobId, material: 'Bedding sand', quantity: 4, unit: 'ton' })
   await db('material_drops').insert({ id: randomUUID(), day_sheet_id: full, job_id: company.jobId, material: 'Bedding sand', quantity: 3, unit: 'ton' })
+  const cookie = await signIn(company.lead.email)
+  photoIds = [await uploadPhoto(cookie, 'day_sheet', full, 'Subgrade proof-rolled'), await uploadPhoto(cookie, 'day_sheet', full, 'Base at grade')]
   browser = await launchBrowser()
   baseUrl = url('/')
 })
@@ -76,6 +80,39 @@ describe('the job page', () => {
     expect(await page.getByTestId('job-day-2026-11-02').innerText()).toMatch(/Full day[\s\S]*3 on site · 24 person-hours · 1 lift · 1 drop/)
     expect(await page.getByTestId('job-day-2026-11-03').innerText()).toMatch(/Rain-out[\s\S]*3 on site · 0 person-hours/)
     expect(await checkAccessibility(page), 'the job page').toEqual([])
+  })
+
+  it('opens a job photo on the same page, keeps Tab inside it, and goes back to the thumbnail on Escape', async () => {
+    const page = await phoneOf(company.foreman.email)
+    await page.goto(`/jobs/${company.jobId}`)
+    await waitForApp(page)
+    const thumb = page.getByRole('button', { name: 'Open the photo: Base at grade' })
+    await thumb.click()
+    const viewer = page.getByTestId('photo-viewer')
+    await viewer.waitFor()
+    expect(page.context().pages(), 'no new tab').toHaveLength(1)
+    const shown = () => page.getByTestId('photo-viewer-image').getAttribute('src')
+    expect(await shown()).toBe(`/api/photos/${photoIds[1]}/display`)
+    const focusInside = () => viewer.evaluate(dialog => dialog.contains(document.activeElement))
+    // A modal <dialog> lets Tab pass through the browser's own controls on its way round (headless
+    // has none: the body), never onto the page behind.
+    const focusBehind = () => viewer.evaluate((dialog) => {
+      const at = document.activeElement
+      return Boolean(at && at !== document.body && !dialog.contains(at))
+    })
+    expect(await focusInside(), 'focus moves into the viewer').toBe(true)
+    // Twice round forwards, once backwards.
+    for (const key of [...Array<string>(8).fill('Tab'), ...Array<string>(4).fill('Shift+Tab')]) {
+      await page.keyboard.press(key)
+      expect(await focusBehind(), `focus on the page behind after ${key}`).toBe(false)
+    }
+    expect(await focusInside(), 'focus back in the viewer after going round').toBe(true)
+    expect(await checkAccessibility(page), 'the job photo viewer').toEqual([])
+    await page.keyboard.press('ArrowRight')
+    await expect.poll(shown).toBe(`/api/photos/${photoIds[0]}/display`)
+    await page.keyboard.press('Escape')
+    await viewer.waitFor({ state: 'hidden' })
+    expect(await thumb.evaluate(button => button === document.activeElement), 'focus back on the thumbnail').toBe(true)
   })
 
   it('does not open for a crew lead', async () => {
