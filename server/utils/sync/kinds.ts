@@ -14,6 +14,8 @@ interface KindMap {
   keys: string[]
   /** Record keys that no two rows may share (a unique key of the table besides the id). */
   natural?: string[]
+  /** Record keys held in TIME columns, which MariaDB answers as HH:MM:SS. */
+  times?: string[]
 }
 
 // Listed in the order rows are inserted: what others refer to comes first.
@@ -24,6 +26,7 @@ export const kindMaps: Record<RecordKind, KindMap> = {
     table: 'day_sheets',
     fixed: ['jobId', 'workDate'],
     natural: ['jobId', 'workDate'],
+    times: ['startedAt', 'finishedAt'],
     keys: ['id', 'jobId', 'workDate', 'status', 'startedAt', 'finishedAt', 'weatherConditions', 'rainIn', 'temperatureF', 'hoursLost', 'hoursLostReason', 'workDone', 'siteNotes', 'locateTicket'],
   },
   time_entry: { table: 'time_entries', fixed: ['daySheetId', 'crewMemberId'], keys: ['id', 'daySheetId', 'crewMemberId', 'hours'], natural: ['daySheetId', 'crewMemberId'] },
@@ -41,12 +44,13 @@ export function toColumns<K extends RecordKind>(kind: K, record: RecordOf[K]): R
   return row
 }
 
-/** A row as the phone knows it: the record's keys, times as HH:MM. */
+/** A row as the phone knows it: the record's keys, times as HH:MM (text that looks like a time stays as written). */
 export function fromRow(kind: RecordKind, row: Row): Row {
   const record: Row = {}
+  const times = kindMaps[kind].times ?? []
   for (const [key, column] of keyColumns[kind]) {
     const value = row[column]
-    record[key] = typeof value === 'string' && /^\d\d:\d\d:\d\d$/.test(value) ? value.slice(0, 5) : value ?? null
+    record[key] = typeof value === 'string' && times.includes(key) ? value.slice(0, 5) : value ?? null
   }
   return record
 }
