@@ -3,7 +3,9 @@
 import { createHash } from 'node:crypto'
 import type { Knex } from 'knex'
 import type { Member } from './members'
-import type { JobCreateBody, JobMaterial, JobUpdateBody, JobZone } from '../../shared/schemas/jobs'
+import type { JobCreateBody, JobUpdateBody } from '../../shared/schemas/jobs'
+import type { RecordOf } from '../../shared/schemas/daybook'
+import { fromRow, kindMaps, toColumns } from './sync/kinds'
 
 type JobFields = Omit<JobCreateBody, 'id'>
 
@@ -19,11 +21,15 @@ function jobColumns(body: JobFields) {
   }
 }
 
-const zoneColumns = (jobId: string, zone: JobZone) => ({
-  job_id: jobId, name: zone.name, kind: zone.kind, design_base_depth_in: zone.designBaseDepthIn ?? null, area_sq_ft: zone.areaSqFt ?? null,
-  length_ft: zone.lengthFt ?? null, base_extension_in: zone.baseExtensionIn ?? null, notes: zone.notes ?? null,
-})
-const materialColumns = (jobId: string, line: JobMaterial) => ({ job_id: jobId, material: line.material, quantity: line.quantity, unit: line.unit })
+// Zones and estimate lines are the phone's records without their job id: the sync's mapping serves both.
+type PlanKind = 'zone' | 'material_estimate'
+type Line<K extends PlanKind> = Omit<RecordOf[K], 'jobId'>
+const tableOf = (kind: PlanKind) => kindMaps[kind].table
+const toRow = <K extends PlanKind>(kind: K, jobId: string, line: Line<K>) => toColumns(kind, { ...line, jobId } as RecordOf[K])
+function toLine<K extends PlanKind>(kind: K, row: Record<string, unknown>): Line<K> {
+  const { jobId: _jobId, ...line } = fromRow(kind, row)
+  return line as Line<K>
+}
 
 /** The foreman must be an active foreman of the company, each crew lead an active crew lead. */
 async function checkPeople(trx: Knex.Transaction, organisationId: string, body: JobFields): Promise<void> {
@@ -66,8 +72,8 @@ export async function createJob(office: Member, body: JobCreateBody): Promise<{ 
       await checkIdsFree(trx, body.id, body)
       await trx('jobs').insert({ id: body.id, organisation_id: office.organisationId, ...jobColumns(body) })
       await writeLeads(trx, body.id, body.crewLeadIds)
-      if (body.zones.length) await trx('zones').insert(body.zones.map(z => ({ id: z.id, ...zoneColumns(body.id, z) })))
-      if (body.materials.length) await trx('material_estimates').insert(body.materials.map(m => ({ id: m.id, ...materialColumns(body.id, m) })))
+      await insertLines(trx, 'zone', body.id, body.zones)
+      await insertLines(trx, 'material_estimate', body.id, body.materials)
       await audit(trx, office, 'job.created', 'job', body.id, { name: body.name, crewDaysBid: body.crewDaysBid, personHoursBid: body.personHoursBid })
     })
   }
@@ -95,8 +101,8 @@ export async function updateJob(office: Member, jobId: string, body: JobUpdateBo
     await checkIdsFree(trx, jobId, body)
     await trx('jobs').where({ id: jobId }).update({ ...jobColumns(body), revision: job.revision + 1, updated_at: new Date() })
     await writeLeads(trx, jobId, body.crewLeadIds)
-    await writeZones(trx, jobId, body.zones)
-    await writeMaterials(trx, jobId, body.materials)
+    await writeLines(trx, 'zone', jobId, body.zones, await removeZones(trx, jobId, body.zones))
+    await writeLines(trx, 'material_estimate', jobId, body.materials, await removeMaterials(trx, jobId, body.materials))
     const bidChanged = Number(job.crew_days_bid) !== body.crewDaysBid || Number(job.person_hours_bid) !== body.personHoursBid || job.crew_size !== body.crewSize
     await audit(trx, office, 'job.updated', 'job', jobId, {
       revision: job.revision + 1,
@@ -115,36 +121,43 @@ async function isRepeat(trx: Knex.Transaction, office: Member, jobId: string, re
   return detail.revision === revision && detail.bodyHash === hash
 }
 
-async function writeZones(trx: Knex.Transaction, jobId: string, zones: JobZone[]): Promise<void> {
+/** Zones no longer on the form go, unless lifts are logged on them; answers the ids of those that stay. */
+async function removeZones(trx: Knex.Transaction, jobId: string, zones: Line<'zone'>[]): Promise<Set<string>> {
   const existing = await trx('zones').where({ job_id: jobId }).select('id', 'name')
   const keep = new Set(zones.map(z => z.id))
   const gone = existing.filter(z => !keep.has(z.id))
-  if (gone.length) {
-    // A zone with lifts logged on it carries the proof of its base: it stays.
-    const used = await trx('lifts').whereIn('zone_id', gone.map(z => z.id)).distinct('zone_id')
-    if (used.length) {
-      const names = gone.filter(z => used.some(u => u.zone_id === z.id)).map(z => z.name).join(', ')
-      throw fieldError(409, `Lifts are logged on ${names}: the zone cannot be removed`, { zones: `Lifts are logged on ${names}` })
-    }
-    await trx('zones').whereIn('id', gone.map(z => z.id)).delete()
+  const known = new Set(existing.filter(z => keep.has(z.id)).map(z => z.id as string))
+  if (!gone.length) return known
+  // A zone with lifts logged on it carries the proof of its base: it stays.
+  const used = await trx('lifts').whereIn('zone_id', gone.map(z => z.id)).distinct('zone_id')
+  if (used.length) {
+    const names = gone.filter(z => used.some(u => u.zone_id === z.id)).map(z => z.name).join(', ')
+    throw fieldError(409, `Lifts are logged on ${names}: the zone cannot be removed`, { zones: `Lifts are logged on ${names}` })
   }
-  const known = new Set(existing.map(z => z.id as string))
-  for (const zone of zones) {
-    if (known.has(zone.id)) await trx('zones').where({ id: zone.id }).update({ ...zoneColumns(jobId, zone), revision: trx.raw('revision + 1'), updated_at: new Date() })
-    else await trx('zones').insert({ id: zone.id, ...zoneColumns(jobId, zone) })
-  }
+  await trx('zones').whereIn('id', gone.map(z => z.id)).delete()
+  return known
 }
 
-async function writeMaterials(trx: Knex.Transaction, jobId: string, lines: JobMaterial[]): Promise<void> {
+/** Estimate lines no longer on the form go; answers the ids of those that stay. */
+async function removeMaterials(trx: Knex.Transaction, jobId: string, lines: Line<'material_estimate'>[]): Promise<Set<string>> {
   const keep = lines.map(l => l.id)
   await trx('material_estimates').where({ job_id: jobId }).modify((q) => {
     if (keep.length) q.whereNotIn('id', keep)
   }).delete()
-  const known = new Set((await trx('material_estimates').where({ job_id: jobId }).select('id')).map(r => r.id as string))
-  for (const line of lines) {
-    if (known.has(line.id)) await trx('material_estimates').where({ id: line.id }).update({ ...materialColumns(jobId, line), revision: trx.raw('revision + 1'), updated_at: new Date() })
-    else await trx('material_estimates').insert({ id: line.id, ...materialColumns(jobId, line) })
+  return new Set(await trx('material_estimates').where({ job_id: jobId }).pluck('id'))
+}
+
+async function insertLines<K extends PlanKind>(trx: Knex.Transaction, kind: K, jobId: string, lines: Line<K>[]): Promise<void> {
+  if (lines.length) await trx(tableOf(kind)).insert(lines.map(line => toRow(kind, jobId, line)))
+}
+
+/** The lines already stored (`known`) are updated, each bumping the revision the phones check; the new ones inserted. */
+async function writeLines<K extends PlanKind>(trx: Knex.Transaction, kind: K, jobId: string, lines: Line<K>[], known: Set<string>): Promise<void> {
+  // Updates first: a new estimate line may take the material and unit an updated line gave up.
+  for (const line of lines.filter(l => known.has(l.id))) {
+    await trx(tableOf(kind)).where({ id: line.id }).update({ ...toRow(kind, jobId, line), revision: trx.raw('revision + 1'), updated_at: new Date() })
   }
+  await insertLines(trx, kind, jobId, lines.filter(l => !known.has(l.id)))
 }
 
 export interface JobSetup extends Omit<JobUpdateBody, 'status'> {
@@ -164,8 +177,8 @@ export async function jobSetup(member: Member, jobId: string): Promise<JobSetup>
     id: job.id, revision: job.revision, name: job.name, customerName: job.customer_name, customerPhone: job.customer_phone, customerEmail: job.customer_email,
     siteAddress: job.site_address, status: job.status, foremanId: job.foreman_id, crewLeadIds: leads, crewDaysBid: Number(job.crew_days_bid),
     crewSize: job.crew_size, personHoursBid: Number(job.person_hours_bid), startDate: job.start_date, homeownerUpdates: Boolean(job.homeowner_updates), notes: job.notes,
-    zones: zones.map(z => ({ id: z.id, name: z.name, kind: z.kind, designBaseDepthIn: z.design_base_depth_in, areaSqFt: z.area_sq_ft, lengthFt: z.length_ft, baseExtensionIn: z.base_extension_in, notes: z.notes })),
-    materials: materials.map(m => ({ id: m.id, material: m.material, quantity: Number(m.quantity), unit: m.unit })),
+    zones: zones.map(z => toLine('zone', z)),
+    materials: materials.map(m => toLine('material_estimate', m)),
   }
 }
 

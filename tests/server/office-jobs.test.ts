@@ -194,6 +194,27 @@ describe('job setup', () => {
     expect(Number((await testDb()('jobs').where({ id: patioId }).first()).crew_days_bid)).toBe(job.crewDaysBid)
   })
 
+  it('saves renamed, added and removed zones and estimate lines, a new line taking the material an edited one gave up', async () => {
+    const body = jobBody({ name: 'Cedar path', materials: [
+      { id: randomUUID(), material: 'Crushed stone base', quantity: 14, unit: 'ton' },
+      { id: randomUUID(), material: 'Polymeric sand', quantity: 6, unit: 'bag' },
+    ] })
+    expect((await call('POST', '/api/jobs', { cookie: office, body })).status).toBe(201)
+    const { job } = await (await call('GET', `/api/jobs/${body.id}/setup`, { cookie: office })).json()
+    const [stone] = job.materials.filter((m: { unit: string }) => m.unit === 'ton')
+    const zones = [{ ...job.zones[0], name: 'Back patio, east half', notes: '10:00:00' }, { id: randomUUID(), name: 'Side walk', kind: 'walkway', designBaseDepthIn: null, areaSqFt: null, lengthFt: 30, baseExtensionIn: 6, notes: null }]
+    const materials = [{ id: randomUUID(), material: 'Crushed stone base', quantity: 2, unit: 'ton' }, { ...stone, material: 'Bedding sand', quantity: 3 }]
+    const edit = { ...job, zones, materials }
+    delete edit.id
+    const response = await call('PATCH', `/api/jobs/${body.id}`, { cookie: office, body: edit })
+    expect(response.status).toBe(200)
+    const saved = (await response.json()).job
+    expect(saved.zones).toEqual(zones)
+    expect(saved.materials).toEqual([materials[1], materials[0]])
+    // Phones editing the renamed zone must start from its new revision.
+    expect(await testDb()('zones').where({ job_id: body.id }).orderBy('revision').pluck('revision')).toEqual([1, 2])
+  })
+
   it('keeps a zone that has lifts logged on it (409) and leaves the job as it was', async () => {
     const zone = (await testDb()('zones').where({ job_id: company.jobId }).first())
     const sheetId = randomUUID()
