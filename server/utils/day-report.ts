@@ -1,24 +1,18 @@
 // One day on one job as the office reads it: the day report e-mail, the printable day report and the
 // job's list of days all start from here.
 import type { Member } from './members'
-import { dayStatusLabels, weatherLine, type DayStatus, type ReviewState } from '../../shared/utils/daybook'
+import { dayStatusLabels, weatherLine } from '../../shared/utils/daybook'
 import { photoUrls } from '../../shared/utils/photos'
-
+import { daySheetFields, loadDayParts, type DaySheetFields } from './day-parts'
 
 export interface DayReport {
   job: { id: string, name: string, customerName: string, siteAddress: string, organisationId: string, foremanId: string | null, customerEmail: string | null, homeownerUpdates: boolean }
-  day: {
-    id: string, workDate: string, status: DayStatus, reviewState: ReviewState, startedAt: string | null, finishedAt: string | null,
-    weatherConditions: string | null, rainIn: number | null, temperatureF: number | null, hoursLost: number, hoursLostReason: string | null,
-    workDone: string | null, siteNotes: string | null, locateTicket: string | null,
-  }
+  day: DaySheetFields
   crew: { name: string, hours: number }[]
   drops: { material: string, quantity: number, unit: string, stagedAt: string | null, ticketNumber: string | null }[]
   lifts: { zone: string, sequence: number, material: string, looseIn: number, compactedIn: number, passes: number, compactorClass: string }[]
   photos: { id: string, caption: string | null, thumbKey: string, thumbUrl: string, displayUrl: string }[]
 }
-
-const hhmm = (t: string | null) => (t ? t.slice(0, 5) : null)
 
 /** The whole day, or undefined when there is no such sheet (callers scope it to what a member may see). */
 export async function loadDayReport(daySheetId: string): Promise<DayReport | undefined> {
@@ -26,25 +20,16 @@ export async function loadDayReport(daySheetId: string): Promise<DayReport | und
   const row = await db('day_sheets as s').join('jobs as j', 'j.id', 's.job_id').where('s.id', daySheetId)
     .first('s.*', 'j.name as job_name', 'j.customer_name', 'j.site_address', 'j.organisation_id', 'j.foreman_id', 'j.customer_email', 'j.homeowner_updates')
   if (!row) return undefined
-  const [crew, drops, lifts, photos] = await Promise.all([
-    db('time_entries as t').join('crew_members as c', 'c.id', 't.crew_member_id').where('t.day_sheet_id', daySheetId).orderBy('c.name').select('c.name', 't.hours'),
-    db('material_drops').where('day_sheet_id', daySheetId).orderBy('created_at').select('material', 'quantity', 'unit', 'staged_at', 'ticket_number'),
-    db('lifts as l').join('zones as z', 'z.id', 'l.zone_id').where('l.day_sheet_id', daySheetId).orderBy('z.name').orderBy('l.sequence')
-      .select('z.name as zone', 'l.sequence', 'l.material', 'l.loose_in', 'l.compacted_in', 'l.passes', 'l.compactor_class'),
-    db('photos').where('day_sheet_id', daySheetId).orderByRaw('COALESCE(taken_at, created_at)').select('id', 'caption', 'thumb_key'),
-  ])
-  const num = (v: unknown) => (v === null || v === undefined ? null : Number(v))
+  const { crew, drops, lifts, photos } = await loadDayParts(daySheetId)
   return {
     job: { id: row.job_id, name: row.job_name, customerName: row.customer_name, siteAddress: row.site_address, organisationId: row.organisation_id, foremanId: row.foreman_id, customerEmail: row.customer_email, homeownerUpdates: Boolean(row.homeowner_updates) },
-    day: {
-      id: row.id, workDate: row.work_date, status: row.status, reviewState: row.review_state, startedAt: hhmm(row.started_at), finishedAt: hhmm(row.finished_at),
-      weatherConditions: row.weather_conditions, rainIn: num(row.rain_in), temperatureF: num(row.temperature_f), hoursLost: Number(row.hours_lost),
-      hoursLostReason: row.hours_lost_reason, workDone: row.work_done, siteNotes: row.site_notes, locateTicket: row.locate_ticket,
-    },
-    crew: crew.map(c => ({ name: c.name, hours: Number(c.hours) })),
-    drops: drops.map(d => ({ material: d.material, quantity: Number(d.quantity), unit: d.unit, stagedAt: d.staged_at, ticketNumber: d.ticket_number })),
-    lifts: lifts.map(l => ({ zone: l.zone, sequence: l.sequence, material: l.material, looseIn: Number(l.loose_in), compactedIn: Number(l.compacted_in), passes: l.passes, compactorClass: l.compactor_class })),
-    photos: photos.map(p => ({ id: p.id, caption: p.caption, thumbKey: p.thumb_key, ...photoUrls(p.id) })),
+    day: daySheetFields(row),
+    crew: crew.map(c => ({ name: c.name, hours: c.hours })),
+    drops: drops.map(({ id: _id, ...d }) => d),
+    lifts: lifts.map(l => ({ zone: l.zoneName, sequence: l.sequence, material: l.material, looseIn: l.looseIn, compactedIn: l.compactedIn, passes: l.passes, compactorClass: l.compactorClass })),
+    // Untimed photos sit at their upload time here, not first as on the foreman's review.
+    photos: photos.sort((a, b) => +(a.takenAt ?? a.createdAt) - +(b.takenAt ?? b.createdAt))
+      .map(p => ({ id: p.id, caption: p.caption, thumbKey: p.thumbKey, ...photoUrls(p.id) })),
   }
 }
 

@@ -97,6 +97,26 @@ describe('one day in full', () => {
     expect(full.notes).toEqual([expect.objectContaining({ id: flagId, kind: 'flag', reason: 'quantity_wrong', body: 'Ticket says 10 ton', subjectType: 'material_drop', resolvedAt: null })])
   })
 
+  it('lists photos as taken: untimed ones first on the review, at their upload time on the printed day report', async () => {
+    const day = await loggedDay()
+    const put = async (takenAt?: string) => {
+      const id = randomUUID()
+      const query = new URLSearchParams({ subjectType: 'day_sheet', subjectId: day.sheetId, ...(takenAt ? { takenAt } : {}) })
+      const upload = await fetch(`/api/photos/${id}?${query}`, { method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 32, height: 24 })), headers: { 'content-type': 'image/jpeg', 'cookie': as.lead } })
+      expect(upload.status).toBe(201)
+      return id
+    }
+    const afternoon = await put('2020-01-01T13:00:00.000Z')
+    const untimed = await put()
+    const morning = await put('2020-01-01T09:00:00.000Z')
+    const review = await (await call('GET', `/api/days/${day.sheetId}`, { cookie: as.foreman })).json()
+    expect(review.photos.map((p: { id: string }) => p.id)).toEqual([untimed, morning, afternoon])
+    // Where the files are stored stays on the server.
+    expect(Object.keys(review.photos[0]).sort()).toEqual(['caption', 'displayUrl', 'height', 'id', 'subjectId', 'subjectType', 'takenAt', 'thumbUrl', 'width'])
+    const { report } = await (await call('GET', `/api/reports/day/${day.sheetId}`, { cookie: as.foreman })).json()
+    expect(report.photos.map((p: { id: string }) => p.id)).toEqual([morning, afternoon, untimed])
+  })
+
   it('answers 404 to a foreman of another job, another company, and to a crew lead 403', async () => {
     const day = await loggedDay()
     for (const cookie of [as.otherForeman, as.otherCompanyForeman, as.otherCompanyOffice]) {

@@ -2,6 +2,7 @@
 import type { Member } from '../members'
 import type { ReviewDay, ReviewList, ReviewListDay, ReviewNoteView } from '../../../shared/schemas/review'
 import { liftChecksFor } from '../lift-review'
+import { daySheetFields, loadDayParts } from '../day-parts'
 import { photoUrls } from '../../../shared/utils/photos'
 
 /** Days still to look at: never reviewed, reopened, or carrying a flag. */
@@ -55,16 +56,8 @@ export async function requireReviewableDay(member: Member, dayId: string, db = u
 export async function reviewDayFor(member: Member, dayId: string): Promise<ReviewDay> {
   const db = useDb()
   const s = await requireReviewableDay(member, dayId)
-  const [crew, drops, lifts, photos, notes, reviewer, author, checked] = await Promise.all([
-    db('time_entries as t').join('crew_members as c', 'c.id', 't.crew_member_id').where('t.day_sheet_id', dayId).orderBy('c.name')
-      .select('t.id', 't.crew_member_id as crewMemberId', 'c.name', 't.hours'),
-    db('material_drops').where('day_sheet_id', dayId).orderBy('created_at')
-      .select('id', 'material', 'quantity', 'unit', 'staged_at as stagedAt', 'ticket_number as ticketNumber'),
-    db('lifts as l').join('zones as z', 'z.id', 'l.zone_id').where('l.day_sheet_id', dayId).orderBy(['z.name', 'l.sequence'])
-      .select('l.id', 'l.zone_id as zoneId', 'z.name as zoneName', 'z.kind as zoneKind', 'z.design_base_depth_in as designBaseDepthIn', 'z.base_extension_in as baseExtensionIn',
-        'l.sequence', 'l.material', 'l.loose_in as looseIn', 'l.compacted_in as compactedIn', 'l.passes', 'l.compactor_class as compactorClass', 'l.moisture_note as moistureNote'),
-    db('photos').where('day_sheet_id', dayId).orderBy([{ column: 'taken_at' }, { column: 'created_at' }])
-      .select('id', 'subject_type as subjectType', 'subject_id as subjectId', 'caption', 'taken_at as takenAt', 'width', 'height'),
+  const [{ crew, drops, lifts, photos }, notes, reviewer, author, checked] = await Promise.all([
+    loadDayParts(dayId),
     db('review_notes as n').leftJoin('users as a', 'a.id', 'n.author_id').leftJoin('users as r', 'r.id', 'n.resolved_by').where('n.day_sheet_id', dayId).orderBy('n.created_at')
       .select('n.id', 'n.kind', 'n.subject_type as subjectType', 'n.subject_id as subjectId', 'n.parent_id as parentId', 'n.reason', 'n.body', 'a.name as authorName', 'n.created_at as createdAt', 'n.resolved_at as resolvedAt', 'r.name as resolvedByName'),
     s.reviewed_by ? db('users').where('id', s.reviewed_by).first('name') : undefined,
@@ -73,21 +66,17 @@ export async function reviewDayFor(member: Member, dayId: string): Promise<Revie
     liftChecksFor([dayId]),
   ])
   const checksOf = new Map(checked.map(c => [c.liftId, c.checks]))
-  const photoViews = photos.map((p: ReviewDay['photos'][number]) => ({ ...p, takenAt: iso(p.takenAt), ...photoUrls(p.id) }))
+  const photoViews = photos.map(({ createdAt: _createdAt, thumbKey: _thumbKey, ...p }) => ({ ...p, takenAt: iso(p.takenAt), ...photoUrls(p.id) }))
   return {
-    day: {
-      id: s.id, jobId: s.job_id, workDate: s.work_date, status: s.status, reviewState: s.review_state, reviewedAt: iso(s.reviewed_at), reviewedByName: reviewer?.name ?? null,
-      startedAt: s.started_at?.slice(0, 5) ?? null, finishedAt: s.finished_at?.slice(0, 5) ?? null, weatherConditions: s.weather_conditions, rainIn: s.rain_in, temperatureF: s.temperature_f,
-      hoursLost: s.hours_lost, hoursLostReason: s.hours_lost_reason, workDone: s.work_done, siteNotes: s.site_notes, locateTicket: s.locate_ticket, authorName: author?.name ?? null,
-    },
+    day: { ...daySheetFields(s), jobId: s.job_id, reviewedAt: iso(s.reviewed_at), reviewedByName: reviewer?.name ?? null, authorName: author?.name ?? null },
     job: { id: s.job_id, name: s.job_name, siteAddress: s.site_address, customerName: s.customer_name },
     crew,
     drops,
-    lifts: lifts.map((l: Omit<ReviewDay['lifts'][number], 'checks'>) => ({ ...l, checks: checksOf.get(l.id) ?? [] })),
-    photos: photoViews.filter((p: ReviewDay['photos'][number]) => p.subjectType !== 'review_note'),
+    lifts: lifts.map(l => ({ ...l, checks: checksOf.get(l.id) ?? [] })),
+    photos: photoViews.filter(p => p.subjectType !== 'review_note'),
     notes: notes.map((n: ReviewNoteView): ReviewNoteView => ({
       ...n, createdAt: iso(n.createdAt) ?? '', resolvedAt: iso(n.resolvedAt),
-      photos: photoViews.filter((p: ReviewDay['photos'][number]) => p.subjectType === 'review_note' && p.subjectId === n.id).map((p: ReviewDay['photos'][number]) => ({ id: p.id, caption: p.caption, thumbUrl: p.thumbUrl, displayUrl: p.displayUrl })),
+      photos: photoViews.filter(p => p.subjectType === 'review_note' && p.subjectId === n.id).map(p => ({ id: p.id, caption: p.caption, thumbUrl: p.thumbUrl, displayUrl: p.displayUrl })),
     })),
   }
 }
