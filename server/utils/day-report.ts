@@ -27,8 +27,10 @@ export async function loadDayReport(daySheetId: string): Promise<DayReport | und
     crew: crew.map(c => ({ name: c.name, hours: c.hours })),
     drops: drops.map(({ id: _id, ...d }) => d),
     lifts: lifts.map(l => ({ zone: l.zoneName, sequence: l.sequence, material: l.material, looseIn: l.looseIn, compactedIn: l.compactedIn, passes: l.passes, compactorClass: l.compactorClass })),
-    // Untimed photos sit at their upload time here, not first as on the foreman's review.
-    photos: photos.sort((a, b) => +(a.takenAt ?? a.createdAt) - +(b.takenAt ?? b.createdAt))
+    // Untimed photos sit at their upload time here, not first as on the foreman's review. Photos sent
+    // with the crew's answers to review flags stay between the crew and the foreman: the report can go
+    // to the homeowner.
+    photos: photos.filter(p => p.subjectType !== 'review_note').sort((a, b) => +(a.takenAt ?? a.createdAt) - +(b.takenAt ?? b.createdAt))
       .map(p => ({ id: p.id, caption: p.caption, thumbKey: p.thumbKey, ...photoUrls(p.id) })),
   }
 }

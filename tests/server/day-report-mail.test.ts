@@ -74,6 +74,9 @@ describe('the day report', () => {
     sheetId = day.sheetId
     expect((await sync(lead, day.changes)).response.status).toBe(200)
     for (let i = 1; i <= 7; i++) await uploadPhoto(lead, sheetId, `Base, corner ${i}`)
+    // A photo the crew lead sent with an answer to a review flag, taken before the others.
+    await uploadPhoto(lead, sheetId, 'Flagged corner, reworked')
+    await testDb()('photos').where({ day_sheet_id: sheetId, caption: 'Flagged corner, reworked' }).update({ subject_type: 'review_note', subject_id: randomUUID(), taken_at: new Date('2026-11-24T08:00:00Z') })
   })
 
   it('is not sent while the day waits for the foreman', async () => {
@@ -102,6 +105,12 @@ describe('the day report', () => {
     // The stored thumbnail size (long edge 400 px), not the 1200 px original.
     expect(Math.max(width ?? 0, height ?? 0)).toBe(400)
     expect(report.html).toContain('alt="Base, corner 1"')
+  })
+
+  it('leaves out the photos sent with answers to the foreman\'s flags', async () => {
+    expect(report.html).not.toContain('Flagged corner')
+    const { report: printable } = await (await fetch(`/api/reports/day/${sheetId}`, { headers: { cookie: await signIn(company.office.email) } })).json()
+    expect(printable.photos.map((p: { caption: string }) => p.caption)).toEqual(Array.from({ length: 7 }, (_, i) => `Base, corner ${i + 1}`))
   })
 
   it('goes to the homeowner who asked for updates, without the crew\'s names and hours', async () => {
