@@ -7,9 +7,8 @@ import sharp from 'sharp'
 import { useBuiltServer } from '../support/server'
 import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { signIn, type Cookie } from '../support/http'
-import { addZoneAndCrew, dayWithWork, sync } from '../support/daybook'
+import { addZoneAndCrew, dayWithWork, sync, uploadPhoto } from '../support/daybook'
 import { testDb } from '../support/db'
-import { phoneJpeg } from '../support/images'
 import { startMailCatcher, type CaughtMessage, type MailCatcher } from '../../scripts/mail-catcher'
 
 let catcher: MailCatcher = await startMailCatcher({ smtpPort: 0, httpPort: 0 })
@@ -34,12 +33,6 @@ async function messageTo(to: string, subject: RegExp, timeoutMs = 20_000): Promi
 }
 const messagesTo = (to: string, subject: RegExp) => catcher.messages().filter(m => m.to.includes(to) && subject.test(m.subject))
 const ticks = (n: number) => new Promise(r => setTimeout(r, n * 1000 + 300))
-
-async function uploadPhoto(cookie: Cookie, sheetId: string, caption: string): Promise<void> {
-  const body = new Uint8Array(await phoneJpeg({ width: 1200, height: 900 }))
-  const response = await fetch(`/api/photos/${randomUUID()}?subjectType=day_sheet&subjectId=${sheetId}&caption=${encodeURIComponent(caption)}`, { method: 'PUT', body, headers: { 'content-type': 'image/jpeg', cookie } })
-  expect(response.status).toBe(201)
-}
 
 /** A time zone where it is now between `from` and `to` o'clock, and the date there. */
 function zoneWhereItIs(from: number, to: number): { timeZone: string, date: string } {
@@ -73,9 +66,9 @@ describe('the day report', () => {
     const day = dayWithWork(company.jobId, zoneId, crew, '2026-11-24')
     sheetId = day.sheetId
     expect((await sync(lead, day.changes)).response.status).toBe(200)
-    for (let i = 1; i <= 7; i++) await uploadPhoto(lead, sheetId, `Base, corner ${i}`)
+    for (let i = 1; i <= 7; i++) await uploadPhoto(lead, 'day_sheet', sheetId, `Base, corner ${i}`)
     // A photo the crew lead sent with an answer to a review flag, taken before the others.
-    await uploadPhoto(lead, sheetId, 'Flagged corner, reworked')
+    await uploadPhoto(lead, 'day_sheet', sheetId, 'Flagged corner, reworked')
     await testDb()('photos').where({ day_sheet_id: sheetId, caption: 'Flagged corner, reworked' }).update({ subject_type: 'review_note', subject_id: randomUUID(), taken_at: new Date('2026-11-24T08:00:00Z') })
   })
 
@@ -102,7 +95,7 @@ describe('the day report', () => {
     const response = await globalThis.fetch(`http://127.0.0.1:${catcher.httpPort}/messages/${report.id}/attachments/0`)
     const { width, height, format } = await sharp(Buffer.from(await response.arrayBuffer())).metadata()
     expect(format).toBe('jpeg')
-    // The stored thumbnail size (long edge 400 px), not the 1200 px original.
+    // The stored thumbnail size (long edge 400 px), not the 640 px original.
     expect(Math.max(width ?? 0, height ?? 0)).toBe(400)
     expect(report.html).toContain('alt="Base, corner 1"')
   })

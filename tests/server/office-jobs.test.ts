@@ -3,13 +3,11 @@
 // with GNU `date -d 2030-03-04 +%A`); the jobs start then, so the dates do not depend on today.
 import { randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
-import { fetch } from '@nuxt/test-utils/e2e'
 import { useBuiltServer } from '../support/server'
 import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { call, signIn, type Cookie } from '../support/http'
-import { addZoneAndCrew, sync } from '../support/daybook'
+import { addZoneAndCrew, sync, uploadPhoto } from '../support/daybook'
 import { testDb } from '../support/db'
-import { phoneJpeg } from '../support/images'
 
 await useBuiltServer()
 
@@ -310,9 +308,7 @@ describe('the office\'s job page and printable reports', () => {
 
   it('shows the job\'s photos in the gallery, with the day they belong to', async () => {
     const sheetId = await sheetOn('2030-03-04')
-    const body = new Uint8Array(await phoneJpeg({ width: 800, height: 600 }))
-    const upload = await fetch(`/api/photos/${randomUUID()}?subjectType=day_sheet&subjectId=${sheetId}&caption=Patio%20base`, { method: 'PUT', body, headers: { 'content-type': 'image/jpeg', cookie: lead } })
-    expect(upload.status).toBe(201)
+    await uploadPhoto(lead, 'day_sheet', sheetId, 'Patio base')
     const { photos } = await (await call('GET', `/api/jobs/${patioId}/photos`, { cookie: foreman })).json()
     expect(photos).toEqual([expect.objectContaining({ workDate: '2030-03-04', caption: 'Patio base', subjectType: 'day_sheet', thumbUrl: expect.stringMatching(/^\/api\/photos\/.+\/thumb$/) })])
     expect((await call('GET', photos[0].thumbUrl, { cookie: office })).status).toBe(200)

@@ -6,7 +6,7 @@ import { useBuiltServer } from '../support/server'
 import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { call, signIn, type Cookie } from '../support/http'
 import { testDb } from '../support/db'
-import { addZoneAndCrew, dayWithWork, sync } from '../support/daybook'
+import { addZoneAndCrew, dayWithWork, sync, uploadPhoto } from '../support/daybook'
 import { phoneJpeg } from '../support/images'
 
 await useBuiltServer()
@@ -81,9 +81,7 @@ describe('the review list', () => {
 describe('one day in full', () => {
   it('gives the foreman crew with hours, drops, lifts with their zone, photos with thumbnails and the review thread', async () => {
     const day = await loggedDay()
-    const photoId = randomUUID()
-    const upload = await fetch(`/api/photos/${photoId}?subjectType=lift&subjectId=${day.liftId}`, { method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 64, height: 48 })), headers: { 'content-type': 'image/jpeg', 'cookie': as.lead } })
-    expect(upload.status).toBe(201)
+    const photoId = await uploadPhoto(as.lead, 'lift', day.liftId)
     const { id: flagId } = (await flag(as.foreman, 'material_drop', day.dropId, 'quantity_wrong', 'Ticket says 10 ton')).body
     const response = await call('GET', `/api/days/${day.sheetId}`, { cookie: as.foreman })
     expect(response.status).toBe(200)
@@ -179,8 +177,7 @@ describe('flag, answer, resolve', () => {
     expect(first.body.results).toEqual([expect.objectContaining({ kind: 'flag_answer', id: reply.record.id, status: 'applied' })])
     const again = await sync(as.lead, [reply])
     expect(again.body.results[0]).toMatchObject({ status: 'unchanged' })
-    const photo = await fetch(`/api/photos/${randomUUID()}?subjectType=review_note&subjectId=${reply.record.id}`, { method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 64, height: 48 })), headers: { 'content-type': 'image/jpeg', 'cookie': as.lead } })
-    expect(photo.status).toBe(201)
+    await uploadPhoto(as.lead, 'review_note', reply.record.id)
     expect((await testDb()('review_notes').where({ parent_id: flagId, kind: 'answer' })).map(n => n.id)).toEqual([reply.record.id])
     expect(await auditOf('review.answer', flagId)).toHaveLength(1)
     const withAnswer = await (await call('GET', '/api/daybook/snapshot', { cookie: as.lead })).json()
@@ -214,8 +211,7 @@ describe('flag, answer, resolve', () => {
   it('flags each kind of record: a time entry, a drop, a photo', async () => {
     const day = await loggedDay()
     const entryId = day.changes.find(c => c.kind === 'time_entry')!.record.id as string
-    const photoId = randomUUID()
-    await fetch(`/api/photos/${photoId}?subjectType=day_sheet&subjectId=${day.sheetId}`, { method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 32, height: 24 })), headers: { 'content-type': 'image/jpeg', 'cookie': as.lead } })
+    const photoId = await uploadPhoto(as.lead, 'day_sheet', day.sheetId)
     for (const [type, id] of [['time_entry', entryId], ['material_drop', day.dropId], ['photo', photoId]] as const) {
       expect((await flag(as.office, type, id, 'other', 'Check this')).status).toBe(201)
     }

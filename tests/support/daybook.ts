@@ -32,9 +32,10 @@ export async function sync(cookie: Cookie, changes: unknown[], key = randomUUID(
 }
 
 /** A 640 × 480 photo of a record, uploaded as the phone does; answers the new photo's id. */
-export async function uploadPhoto(cookie: Cookie, subjectType: string, subjectId: string, caption: string): Promise<string> {
+export async function uploadPhoto(cookie: Cookie, subjectType: string, subjectId: string, caption?: string): Promise<string> {
   const id = randomUUID()
-  const response = await fetch(`/api/photos/${id}?subjectType=${subjectType}&subjectId=${subjectId}&caption=${encodeURIComponent(caption)}`, {
+  const query = new URLSearchParams({ subjectType, subjectId, ...(caption === undefined ? {} : { caption }) })
+  const response = await fetch(`/api/photos/${id}?${query}`, {
     method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 640, height: 480 })), headers: { 'content-type': 'image/jpeg', cookie },
   })
   if (response.status !== 201) throw new Error(`the photo upload answered ${response.status}`)
