@@ -9,11 +9,12 @@ import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { signIn, type Cookie } from '../support/http'
 import { addZoneAndCrew, dayWithWork, sync, uploadPhoto } from '../support/daybook'
 import { testDb } from '../support/db'
-import { startMailCatcher, type CaughtMessage, type MailCatcher } from '../../scripts/mail-catcher'
+import type { CaughtMessage } from '../../scripts/mail-catcher'
+import { useMailCatcher } from '../support/mail'
 
-let catcher: MailCatcher = await startMailCatcher({ smtpPort: 0, httpPort: 0 })
-const smtpPort = catcher.smtpPort
-await useBuiltServer({ NUXT_MAIL_SMTP_HOST: '127.0.0.1', NUXT_MAIL_SMTP_PORT: String(smtpPort), NUXT_REPORTS_INTERVAL_SECONDS: '1', NUXT_REPORTS_EVENING_HOUR: '19' })
+const mail = await useMailCatcher()
+const { messageTo, messagesTo } = mail
+await useBuiltServer({ ...mail.env, NUXT_REPORTS_INTERVAL_SECONDS: '1', NUXT_REPORTS_EVENING_HOUR: '19' })
 
 let company: FixtureCompany
 let lead: Cookie
@@ -21,17 +22,6 @@ let zoneId: string
 let crew: string[]
 const homeowner = `homeowner.${randomUUID().slice(0, 8)}@example.test`
 
-/** The first caught message to `to` whose subject matches, waiting for the outbox to send it. */
-async function messageTo(to: string, subject: RegExp, timeoutMs = 20_000): Promise<CaughtMessage> {
-  const deadline = Date.now() + timeoutMs
-  while (Date.now() < deadline) {
-    const found = catcher.messages().find(m => m.to.includes(to) && subject.test(m.subject))
-    if (found) return found
-    await new Promise(r => setTimeout(r, 100))
-  }
-  throw new Error(`no message "${subject}" to ${to} arrived`)
-}
-const messagesTo = (to: string, subject: RegExp) => catcher.messages().filter(m => m.to.includes(to) && subject.test(m.subject))
 const ticks = (n: number) => new Promise(r => setTimeout(r, n * 1000 + 300))
 
 /** A time zone where it is now between `from` and `to` o'clock, and the date there. */
@@ -55,7 +45,7 @@ beforeAll(async () => {
 })
 
 afterAll(async () => {
-  await catcher.stop()
+  await mail.stop()
 })
 
 describe('the day report', () => {
@@ -92,7 +82,7 @@ describe('the day report', () => {
     const images = report.attachments.filter(a => a.contentType === 'image/jpeg')
     expect(images).toHaveLength(6)
     for (const image of images) expect(report.html).toContain(`cid:${image.cid}`)
-    const response = await globalThis.fetch(`http://127.0.0.1:${catcher.httpPort}/messages/${report.id}/attachments/0`)
+    const response = await globalThis.fetch(`http://127.0.0.1:${mail.catcher.httpPort}/messages/${report.id}/attachments/0`)
     const { width, height, format } = await sharp(Buffer.from(await response.arrayBuffer())).metadata()
     expect(format).toBe('jpeg')
     // The stored thumbnail size (long edge 400 px), not the 640 px original.
@@ -171,7 +161,7 @@ describe('the evening report', () => {
 
 describe('a relay that is down', () => {
   it('never blocks the sync, and the notice goes out when the relay is back', async () => {
-    await catcher.stop()
+    await mail.stop()
     const sheetId = randomUUID()
     const { response } = await sync(lead, [{ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id: sheetId, jobId: company.jobId, workDate: '2026-11-26', status: 'rain_out', hoursLost: 8 } }])
     expect(response.status).toBe(200)
@@ -179,7 +169,7 @@ describe('a relay that is down', () => {
       .toMatchObject({ sent_at: null, last_error: expect.any(String), attempts: expect.any(Number) })
     const failed = await testDb()('mail_outbox').where({ day_sheet_id: sheetId, kind: 'rain_out' }).first()
     expect(failed.attempts).toBeGreaterThanOrEqual(1)
-    catcher = await startMailCatcher({ smtpPort, httpPort: 0 })
+    await mail.restart()
     const notice = await messageTo(company.foreman.email, /^Rain-out: Fixture walk, 2026-11-26$/, 40_000)
     expect(notice.to).toContain(company.office.email)
     // The row is marked sent just after the relay took the message.
