@@ -70,6 +70,8 @@ describe('a flag from the foreman to the crew lead\'s phone and back', () => {
     await foreman.getByTestId(`review-day-${sheetId}`).click()
     await foreman.getByRole('heading', { name: 'Fixture walk' }).waitFor()
     await foreman.getByText('Front walk · lift 1 · 3/4 in crushed stone').waitFor()
+    // The phone sent the machine under its older id, plate_medium: the foreman reads its name.
+    await foreman.getByText('4 passes · Medium plate compactor').waitFor()
     await foreman.getByText('12 ton · 3/4 in crushed stone').waitFor()
     expect(await foreman.getByRole('heading', { name: 'All photos (2)' }).count()).toBe(1)
     expect(await checkAccessibility(foreman), 'the day under review').toEqual([])
