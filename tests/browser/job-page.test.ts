@@ -115,6 +115,23 @@ describe('the job page', () => {
     expect(await thumb.evaluate(button => button === document.activeElement), 'focus back on the thumbnail').toBe(true)
   })
 
+  it('says when the lift checks could not be loaded, and shows them after "Try again"', async () => {
+    const page = await phoneOf(company.foreman.email)
+    await page.goto('/jobs')
+    await waitForApp(page)
+    // Opened from the jobs table, the page asks for its data from the browser, where the request can fail.
+    let failing = true
+    await page.route('**/api/jobs/*/lift-checks', route => failing ? route.fulfill({ status: 500, contentType: 'application/json', body: '{}' }) : route.continue())
+    await page.locator(`a[href="/jobs/${company.jobId}"]`).first().click()
+    const alert = page.getByRole('alert').filter({ hasText: 'The lift checks could not be loaded.' })
+    await alert.waitFor()
+    expect(await page.getByText('No lifts logged yet.').count()).toBe(0)
+    failing = false
+    await alert.getByRole('button', { name: 'Try again' }).click()
+    await page.locator('[data-lift]').first().waitFor()
+    expect(await alert.count()).toBe(0)
+  })
+
   it('does not open for a crew lead', async () => {
     const page = await phoneOf(company.lead.email)
     await page.goto(`/jobs/${company.jobId}`)
