@@ -73,6 +73,10 @@ export default defineNuxtConfig({
       // 'fs' (under dir) or 's3' (any S3-compatible store).
       driver: 'fs',
       dir: '.data/photos',
+      // An upload that sends nothing for idleSeconds, or is not complete after totalSeconds, gets 408
+      // (server/utils/upload-body.ts); 20 MB on a weak 3G link takes a few minutes.
+      idleSeconds: 30,
+      totalSeconds: 600,
       s3Endpoint: '',
       s3Region: 'us-east-1',
       s3Bucket: '',

@@ -4,6 +4,8 @@ import { createHash } from 'node:crypto'
 import type { H3Event } from 'h3'
 import sharp from 'sharp'
 import type { Member } from './members'
+import { QueueFull, SlotQueue } from './decode-slots'
+import { abortWhenGone, receiveBody, receivingUploads, type BodyLimits } from './upload-body'
 import { photoKeys, photoSizes, photoUrls } from '../../shared/utils/photos'
 import { photoContentTypes, type PhotoRecord, type PhotoSizeName, type PhotoSubjectType, type PhotoUploadQuery } from '../../shared/schemas/photos'
 
@@ -12,22 +14,22 @@ sharp.cache(false)
 
 export const photoBodyLimit = 20 * 1024 * 1024
 
-// A 12-megapixel photo takes some 100 MB to decode and resize: with eight crews' phones uploading at
-// once, two at a time keep the server's memory bounded while the others wait their turn.
-const decodeSlots = 2
-let decoding = 0
-const waitingForSlot: (() => void)[] = []
-async function decodeSlot<T>(work: () => Promise<T>): Promise<T> {
-  if (decoding >= decodeSlots) await new Promise<void>(resolve => waitingForSlot.push(resolve))
-  decoding++
-  try {
-    return await work()
-  }
-  finally {
-    decoding--
-    waitingForSlot.shift()?.()
-  }
+// Two decodes at a time keep the server's memory bounded; eight photos may wait for them. Bodies are
+// read before the queue (upload-body.ts), at most a dozen at once: each holds up to photoBodyLimit.
+const decodeQueue = new SlotQueue(2, 8)
+const maxReceiving = 12
+const retryAfterSeconds = 5
+
+/** What the photo route is busy with, for /api/health. */
+export function uploadLoad() {
+  return { receiving: receivingUploads(), ...decodeQueue.load() }
 }
+
+function uploadLimits(): BodyLimits {
+  const { photos } = useRuntimeConfig()
+  return { maxBytes: photoBodyLimit, idleMs: Number(photos.idleSeconds) * 1000, totalMs: Number(photos.totalSeconds) * 1000 }
+}
+
 // Phone cameras save 12–50 MP by default; anything larger is refused before it is decoded.
 const maxInputPixels = 50_000_000
 const sharpInput = { limitInputPixels: maxInputPixels, failOn: 'error' } as const
@@ -50,11 +52,19 @@ export async function ingestPhoto(event: H3Event, member: Member, id: string, qu
   const contentType = getRequestHeader(event, 'content-type')?.split(';')[0]?.trim().toLowerCase()
   if (!photoContentTypes.some(t => t === contentType)) throw notAnImage()
   const subject = await requireSubject(member, query.subjectType, query.subjectId)
+  // A photo already stored answers at once, whatever is still on its way.
+  const stored = await storedPhoto(id)
+  if (stored) return { status: 200, photo: replayOf(stored, query) }
+  if (receivingUploads() >= maxReceiving) throw busy(event)
+  const gone = abortWhenGone(event)
+  const bytes = await receiveBody(event, uploadLimits(), tooLarge)
   // A retry may arrive while the first attempt is still being processed: take them one at a time.
   return await oneAtATime(id, async () => {
-    const stored = await useDb()('photos').where({ id }).first<PhotoRow | undefined>()
+    const stored = await storedPhoto(id)
     if (stored) return { status: 200, photo: replayOf(stored, query) }
-    const image = await decodeSlot(async () => processImage(await readLimitedBody(event)))
+    const image = await decodeQueue.run(() => processImage(bytes), gone).catch((error: unknown) => {
+      throw error instanceof QueueFull ? busy(event) : error
+    })
     const keys = photoKeys(member.organisationId, id)
     const row = {
       id, organisation_id: member.organisationId, job_id: subject.jobId, day_sheet_id: subject.daySheetId,
@@ -71,7 +81,7 @@ export async function ingestPhoto(event: H3Event, member: Member, id: string, qu
     }
     catch (error) {
       // Another server process stored the same id first: its blobs are under the same keys, keep them.
-      const winner = (error as { code?: string }).code === 'ER_DUP_ENTRY' && await useDb()('photos').where({ id }).first<PhotoRow | undefined>()
+      const winner = (error as { code?: string }).code === 'ER_DUP_ENTRY' && await storedPhoto(id)
       if (winner) return { status: 200, photo: replayOf(winner, query) }
       await Promise.allSettled([useStorage('photos').removeItem(keys.display), useStorage('photos').removeItem(keys.thumb)])
       throw error
@@ -137,23 +147,16 @@ const tooLarge = () => createError({ statusCode: 413, statusMessage: `The photo 
 const notAnImage = () => createError({ statusCode: 415, statusMessage: 'Only JPEG, PNG and WebP photos can be uploaded' })
 const unreadable = () => createError({ statusCode: 422, statusMessage: 'The image could not be read' })
 
-/** The request body, refused with 413 as soon as it passes the limit (a body may come without a length). */
-function readLimitedBody(event: H3Event): Promise<Buffer> {
-  const request = event.node.req
-  return new Promise((resolve, reject) => {
-    const chunks: Buffer[] = []
-    let size = 0
-    // Past the limit the rest is read and dropped, not cut off, so the phone gets the 413 rather than a reset.
-    request.on('data', (chunk: Buffer) => {
-      size += chunk.length
-      if (size <= photoBodyLimit) return chunks.push(chunk)
-      chunks.length = 0
-      reject(tooLarge())
-    })
-    request.on('end', () => resolve(Buffer.concat(chunks)))
-    request.on('error', reject)
+function busy(event: H3Event) {
+  setResponseHeader(event, 'Retry-After', retryAfterSeconds)
+  return createError({
+    statusCode: 503,
+    statusMessage: 'The server is busy with other photos; this one will be sent again shortly',
+    data: { retryAfterSeconds },
   })
 }
+
+const storedPhoto = async (id: string) => await useDb()('photos').where({ id }).first<PhotoRow | undefined>()
 
 function sniff(bytes: Buffer): 'jpeg' | 'png' | 'webp' | undefined {
   if (bytes[0] === 0xFF && bytes[1] === 0xD8 && bytes[2] === 0xFF) return 'jpeg'

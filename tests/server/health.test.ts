@@ -8,7 +8,7 @@ describe('health', () => {
   it('answers 200 with ok when the database answers, so a load balancer keeps the app in service', async () => {
     const response = await fetch('/api/health')
     expect(response.status).toBe(200)
-    expect(await response.json()).toEqual({ ok: true })
+    expect(await response.json()).toEqual({ ok: true, uploads: { receiving: 0, decoding: 0, waiting: 0 } })
   })
 
   it('serves the sign-in page to a person who opens the app', async () => {
