@@ -7,6 +7,7 @@ import * as daybook from './migrations/20261201000003_daybook'
 import * as reviewSyncAudit from './migrations/20261201000004_review_sync_audit'
 import * as reviewListIndex from './migrations/20261202000001_review_list_index'
 import * as mailOutbox from './migrations/20261202040001_mail_outbox'
+import * as sessionsAndGuards from './migrations/20261203000001_sessions_and_guards'
 
 export const migrations: Record<string, Knex.Migration> = {
   '20261201000001_organisations_and_people.ts': organisationsAndPeople,
@@ -15,6 +16,7 @@ export const migrations: Record<string, Knex.Migration> = {
   '20261201000004_review_sync_audit.ts': reviewSyncAudit,
   '20261202000001_review_list_index.ts': reviewListIndex,
   '20261202040001_mail_outbox.ts': mailOutbox,
+  '20261203000001_sessions_and_guards.ts': sessionsAndGuards,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

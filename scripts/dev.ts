@@ -6,7 +6,7 @@ import { prepareApp, printSignIns } from './prepare'
 import { failInOneLine } from './run-helpers'
 
 async function main(): Promise<void> {
-  const env = await prepareApp()
+  const env = await prepareApp({ NUXT_APP_URL: process.env.NUXT_APP_URL || 'http://localhost:3000' })
   const catcher = await startMailCatcher({ smtpPort: mailSettings.smtpPort, httpPort: mailSettings.catcherHttpPort })
   const dev = spawn('npx', ['nuxt', 'dev'], {
     cwd: root,

@@ -10,7 +10,8 @@ import { failInOneLine, waitForHealth } from './run-helpers'
 const port = Number(process.env.PORT || 3000)
 
 async function main(): Promise<void> {
-  const env = await prepareApp({ PORT: String(port) })
+  // Links in mail point here unless NUXT_APP_URL says otherwise (server/utils/app-origin.ts).
+  const env = await prepareApp({ PORT: String(port), NUXT_APP_URL: process.env.NUXT_APP_URL || `http://localhost:${port}` })
   ensureBuild()
   const catcher = await startMailCatcher({ smtpPort: mailSettings.smtpPort, httpPort: mailSettings.catcherHttpPort })
   const server = spawn(process.execPath, [resolve(root, '.output', 'server', 'index.mjs')], {

@@ -11,6 +11,7 @@ export default defineNitroPlugin((nitro) => {
     try {
       await queueDueMail(settings)
       await sendDueMail(settings)
+      await sendQueuedMessages(settings)
       lastError = ''
     }
     catch (error) {

@@ -8,18 +8,25 @@ let decoyHash: Promise<string> | undefined
 
 export const wrongPairMessage = 'That e-mail and password do not match an account'
 
-interface AccountRow { id: string, name: string, email: string, locale: 'en' | 'es', password_hash: string | null, organisation_id: string, role: Role }
+interface AccountRow { id: string, name: string, email: string, locale: 'en' | 'es', password_hash: string | null, organisation_id: string, organisation_name: string, role: Role }
 
-/** The user with an active membership (their first), or undefined. */
-export async function findAccount(where: { email: string } | { id: string }): Promise<AccountRow | undefined> {
+/** The user's active memberships, the oldest first (one row each), or none. */
+export async function findAccounts(where: { email: string } | { id: string }): Promise<AccountRow[]> {
   const column = 'email' in where ? 'u.email' : 'u.id'
   const value = 'email' in where ? where.email : where.id
   return await useDb()('users as u')
     .join('memberships as m', 'm.user_id', 'u.id')
+    .join('organisations as o', 'o.id', 'm.organisation_id')
     .where(column, value)
     .andWhere('m.active', true)
     .orderBy('m.created_at')
-    .first('u.id', 'u.name', 'u.email', 'u.locale', 'u.password_hash', 'm.organisation_id', 'm.role')
+    .select('u.id', 'u.name', 'u.email', 'u.locale', 'u.password_hash', 'm.organisation_id', 'o.name as organisation_name', 'm.role')
+}
+
+/** The user with an active membership (their first, or of the organisation named), or undefined. */
+export async function findAccount(where: { email: string } | { id: string }, organisationId?: string): Promise<AccountRow | undefined> {
+  const accounts = await findAccounts(where)
+  return organisationId ? accounts.find(a => a.organisation_id === organisationId) : accounts[0]
 }
 
 export function sessionUser(account: AccountRow): User {
@@ -27,22 +34,37 @@ export function sessionUser(account: AccountRow): User {
 }
 
 export async function startSession(event: H3Event, account: AccountRow): Promise<User> {
-  const user = sessionUser(account)
-  await replaceUserSession(event, { user, signedInAt: Date.now() })
-  return user
+  return await openSession(event, sessionUser(account))
 }
 
-export async function signIn(event: H3Event, email: string, password: string): Promise<User> {
-  // X-Forwarded-For is believed only behind a proxy that sets it (NUXT_TRUST_PROXY=true).
-  const ip = getRequestIP(event, { xForwardedFor: String(useRuntimeConfig().trustProxy) === 'true' }) ?? 'unknown'
-  await assertNotThrottled(event, email, ip)
-  const account = await findAccount({ email })
+/** The address the throttle counts: X-Forwarded-For is believed only behind a proxy that sets it (NUXT_TRUST_PROXY=true). */
+export function signInAddress(event: H3Event): string {
+  return getRequestIP(event, { xForwardedFor: String(useRuntimeConfig().trustProxy) === 'true' }) ?? 'unknown'
+}
+
+/**
+ * Signs in with the right pair. A person in more than one company names the one this sign-in is for;
+ * without it they get 409 with the companies to choose from (only once the password was right).
+ */
+export async function signIn(event: H3Event, email: string, password: string, organisationId?: string): Promise<User> {
+  const ip = signInAddress(event)
+  await claimSignInGuess(event, email, ip)
+  const accounts = await findAccounts({ email })
+  const account = accounts[0]
   decoyHash ??= hashPassword('not-a-password-anyone-has')
   const matches = await verifyPassword(account?.password_hash ?? await decoyHash, password)
   if (!account?.password_hash || !matches) {
     await recordFailedSignIn(email, ip)
     throw createError({ statusCode: 401, statusMessage: wrongPairMessage })
   }
-  await clearFailedSignIns(email)
-  return await startSession(event, account)
+  await clearFailedSignIns(email, ip)
+  const chosen = organisationId ? accounts.find(a => a.organisation_id === organisationId) : accounts.length === 1 ? account : undefined
+  if (!chosen) {
+    throw createError({
+      statusCode: 409,
+      statusMessage: 'Choose the company to sign in to',
+      data: { organisations: accounts.map(a => ({ id: a.organisation_id, name: a.organisation_name, role: a.role })) },
+    })
+  }
+  return await startSession(event, chosen)
 }

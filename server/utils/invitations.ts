@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto'
 import type { H3Event } from 'h3'
 import type { Role } from '../../shared/utils/daybook'
 import type { Member } from './members'
+import { acceptInvitationBody, type AcceptRequestBody } from '../../shared/schemas/auth'
 
 const invitationDays = 7
 
@@ -15,9 +16,9 @@ export async function pendingInvitations(organisationId: string): Promise<Invita
     .orderBy('created_at', 'desc').select(columns)
 }
 
-async function mailInvitation(event: H3Event, invitation: { email: string, role: Role }, token: string, inviter: Member): Promise<boolean> {
+async function mailInvitation(base: string, invitation: { email: string, role: Role }, token: string, inviter: Member): Promise<boolean> {
   const organisation = await useDb()('organisations').where({ id: inviter.organisationId }).first('name')
-  const url = `${appUrl(event)}/invite?token=${token}`
+  const url = `${base}/invite?token=${token}`
   const roleName = { office: 'office', foreman: 'foreman', crew_lead: 'crew lead' }[invitation.role]
   const { text, html } = renderMail({
     heading: `${inviter.name} added you to ${organisation?.name ?? 'a company'} on Tamp`,
@@ -33,6 +34,7 @@ function expiry(): Date {
 }
 
 export async function createInvitation(event: H3Event, inviter: Member, email: string, role: Role): Promise<{ invitation: InvitationView, mailSent: boolean }> {
+  const base = linkBase(event)
   const existing = await useDb()('users as u').join('memberships as m', 'm.user_id', 'u.id')
     .where({ 'u.email': email, 'm.organisation_id': inviter.organisationId }).first('m.id')
   if (existing) throw createError({ statusCode: 409, statusMessage: 'That address already belongs to a member', data: { fieldErrors: { email: 'Already a member' } } })
@@ -44,17 +46,19 @@ export async function createInvitation(event: H3Event, inviter: Member, email: s
     await trx('invitations').insert({ id, organisation_id: inviter.organisationId, email, role, token_hash: hash, invited_by: inviter.userId, expires_at: expiry() })
     await audit(trx, inviter, 'invitation.created', 'invitation', id, { email, role })
   })
-  const mailSent = await mailInvitation(event, { email, role }, token, inviter)
+  const mailSent = await mailInvitation(base, { email, role }, token, inviter)
   const invitation = await useDb()('invitations').where({ id }).first(columns)
   return { invitation, mailSent }
 }
 
 export async function resendInvitation(event: H3Event, inviter: Member, id: string): Promise<{ invitation: InvitationView, mailSent: boolean }> {
+  const base = linkBase(event)
   const row = await useDb()('invitations').where({ id, organisation_id: inviter.organisationId }).whereNull('accepted_at').whereNull('revoked_at').first()
   if (!row) throw createError({ statusCode: 404, statusMessage: 'No such open invitation' })
   const { token, hash } = newToken()
   await useDb()('invitations').where({ id }).update({ token_hash: hash, expires_at: expiry(), updated_at: new Date() })
-  const mailSent = await mailInvitation(event, row, token, inviter)
+  // The new token replaces the old one: the link mailed before stops working.
+  const mailSent = await mailInvitation(base, row, token, inviter)
   return { invitation: await useDb()('invitations').where({ id }).first(columns), mailSent }
 }
 
@@ -67,28 +71,55 @@ export async function revokeInvitation(inviter: Member, id: string): Promise<voi
 /** The open invitation behind a link, or 404 (used, revoked, expired or unknown all look the same). */
 export async function invitationByToken(token: string) {
   const row = await useDb()('invitations as i').join('organisations as o', 'o.id', 'i.organisation_id')
+    .leftJoin('users as u', 'u.email', 'i.email')
     .where('i.token_hash', hashToken(token)).whereNull('i.accepted_at').whereNull('i.revoked_at').andWhereRaw('i.expires_at > NOW(3)')
-    .first('i.id', 'i.email', 'i.role', 'i.organisation_id as organisationId', 'o.name as organisationName')
+    .first('i.id', 'i.email', 'i.role', 'i.organisation_id as organisationId', 'o.name as organisationName', 'u.id as userId', 'u.password_hash as passwordHash')
   if (!row) throw createError({ statusCode: 404, statusMessage: 'This invitation link is not valid any more; ask the office for a new one' })
-  return row as { id: string, email: string, role: Role, organisationId: string, organisationName: string }
+  return row as { id: string, email: string, role: Role, organisationId: string, organisationName: string, userId: string | null, passwordHash: string | null }
 }
 
-export async function acceptInvitation(token: string, name: string, password: string): Promise<string> {
-  const invitation = await invitationByToken(token)
-  const passwordHash = await hashPassword(password)
+/** What the invitation page shows: whether the address already has an account decides what it asks for. */
+export async function invitationPreview(token: string) {
+  const { email, role, organisationName, userId } = await invitationByToken(token)
+  return { email, role, organisationName, accountExists: userId !== null }
+}
+
+/**
+ * Accepts an invitation; the user then signs in for the inviting company. A new person
+ * chooses a name and a password; an address that already has an account joins with that account's
+ * own password, which is never set or replaced here, and nothing of its other companies changes.
+ */
+export async function acceptInvitation(event: H3Event, body: AcceptRequestBody): Promise<{ userId: string, organisationId: string }> {
+  const invitation = await invitationByToken(body.token)
+  const newPerson = invitation.userId ? undefined : acceptInvitationBody.safeParse(body)
+  if (newPerson && !newPerson.success) throw invalidInput(newPerson.error)
+  if (invitation.userId) await checkOwnPassword(event, invitation.email, invitation.passwordHash, body.password)
+  const passwordHash = newPerson?.success ? await hashPassword(newPerson.data.password) : undefined
   return await useDb().transaction(async (trx) => {
     // The row lock makes a double-tapped accept create one account, not two.
     const locked = await trx('invitations').where({ id: invitation.id }).whereNull('accepted_at').forUpdate().first('id')
     if (!locked) throw createError({ statusCode: 404, statusMessage: 'This invitation was already used' })
-    let user = await trx('users').where({ email: invitation.email }).first('id')
-    if (user) await trx('users').where({ id: user.id }).update({ name, password_hash: passwordHash, updated_at: new Date() })
-    else {
-      user = { id: randomUUID() }
-      await trx('users').insert({ id: user.id, email: invitation.email, name, password_hash: passwordHash })
+    let userId = invitation.userId
+    if (!userId) {
+      userId = randomUUID()
+      await trx('users').insert({ id: userId, email: invitation.email, name: newPerson?.data?.name, password_hash: passwordHash })
     }
-    await trx('memberships').insert({ id: randomUUID(), organisation_id: invitation.organisationId, user_id: user.id, role: invitation.role })
+    const member = await trx('memberships').where({ organisation_id: invitation.organisationId, user_id: userId }).first('id')
+    if (member) throw createError({ statusCode: 409, statusMessage: 'You are already a member of this company; sign in instead' })
+    await trx('memberships').insert({ id: randomUUID(), organisation_id: invitation.organisationId, user_id: userId, role: invitation.role })
     await trx('invitations').where({ id: invitation.id }).update({ accepted_at: new Date() })
-    await audit(trx, { organisationId: invitation.organisationId, userId: user.id }, 'invitation.accepted', 'invitation', invitation.id, { role: invitation.role })
-    return user.id
+    await audit(trx, { organisationId: invitation.organisationId, userId }, 'invitation.accepted', 'invitation', invitation.id, { role: invitation.role, existingAccount: Boolean(invitation.userId) })
+    return { userId, organisationId: invitation.organisationId }
   })
+}
+
+/** The account's own password, counted by the sign-in throttle like any sign-in. */
+async function checkOwnPassword(event: H3Event, email: string, passwordHash: string | null, password: string): Promise<void> {
+  const ip = signInAddress(event)
+  await claimSignInGuess(event, email, ip)
+  if (!passwordHash || !await verifyPassword(passwordHash, password)) {
+    await recordFailedSignIn(email, ip)
+    throw createError({ statusCode: 422, statusMessage: 'Some fields need a look', data: { fieldErrors: { password: 'This is not the password of your Tamp account' } } })
+  }
+  await clearFailedSignIns(email, ip)
 }

@@ -39,9 +39,3 @@ export async function sendMail(message: OutgoingMail): Promise<boolean> {
     return false
   }
 }
-
-/** Where links in e-mails point: the configured address, else the address this request came to. */
-export function appUrl(event: Parameters<typeof getRequestURL>[0]): string {
-  const configured = useRuntimeConfig().appUrl
-  return (configured || getRequestURL(event).origin).replace(/\/$/, '')
-}

@@ -21,6 +21,7 @@ export async function updateMember(office: Member, membershipId: string, change:
     }
     const update = { ...(change.role ? { role: change.role } : {}), ...(change.active !== undefined ? { active: change.active } : {}), updated_at: new Date() }
     await trx('memberships').where({ id: membershipId }).update(update)
+    if (change.active === false) await endSessionsOf(trx, target.user_id, 'deactivated', { organisationId: office.organisationId })
     await audit(trx, office, 'member.updated', 'membership', membershipId, { from: { role: target.role, active: Boolean(target.active) }, to: change })
     const member = await trx('memberships as m').join('users as u', 'u.id', 'm.user_id').where('m.id', membershipId).first(memberColumns)
     return { ...member, active: Boolean(member.active) }

@@ -7,10 +7,12 @@ export interface Member {
   organisationId: string
   role: Role
   name: string
+  /** The sign-in this request came through (user_sessions). */
+  sessionId: string
 }
 
-/** Who the session cookie says is signed in, before their membership is confirmed. */
-export type SignedIn = Pick<Member, 'userId' | 'organisationId'>
+/** Who the session cookie says is signed in, and which sign-in it is, before their membership is confirmed. */
+export type SignedIn = Pick<Member, 'userId' | 'organisationId' | 'sessionId'>
 
 /**
  * The signed-in member, re-read from the database on every request so that a deactivation or a role
@@ -26,11 +28,16 @@ export async function requireMember(event: H3Event, roles?: readonly Role[]): Pr
   return member
 }
 
-/** The user's live membership of the organisation they signed in to (select `membershipColumns`). */
+/**
+ * The user's live membership of the organisation they signed in to, through a sign-in that has not
+ * ended (select `membershipColumns`).
+ */
 export function membershipOf(user: SignedIn) {
   return useDb()('memberships as m')
     .join('users as u', 'u.id', 'm.user_id')
-    .where({ 'm.user_id': user.userId, 'm.organisation_id': user.organisationId, 'm.active': true })
+    .join('user_sessions as us', join => join.on('us.user_id', 'm.user_id').andOn('us.organisation_id', 'm.organisation_id'))
+    .where({ 'm.user_id': user.userId, 'm.organisation_id': user.organisationId, 'm.active': true, 'us.id': user.sessionId })
+    .whereNull('us.ended_at')
 }
 export const membershipColumns = ['m.id as membershipId', 'm.role', 'u.name']
 export type MembershipRow = Pick<Member, 'membershipId' | 'role' | 'name'>
@@ -42,9 +49,15 @@ export type MembershipRow = Pick<Member, 'membershipId' | 'role' | 'name'>
 export async function confirmMember(event: H3Event, user: SignedIn, row: MembershipRow | undefined): Promise<Member> {
   if (!row) {
     await clearUserSession(event)
-    throw createError({ statusCode: 401, statusMessage: 'Your sign-in has ended; sign in again' })
+    // The phone keeps what it holds either way; the message says why it cannot send it.
+    const membership = await useDb()('memberships').where({ user_id: user.userId, organisation_id: user.organisationId }).first('active')
+    throw createError({
+      statusCode: 401,
+      statusMessage: membership && !membership.active ? 'Your access to this company was turned off; ask the office' : 'Your sign-in has ended; sign in again',
+      data: { reason: membership && !membership.active ? 'deactivated' : 'signed_out' },
+    })
   }
-  const member: Member = { userId: user.userId, organisationId: user.organisationId, membershipId: row.membershipId, role: row.role, name: row.name }
+  const member: Member = { userId: user.userId, organisationId: user.organisationId, sessionId: user.sessionId, membershipId: row.membershipId, role: row.role, name: row.name }
   event.context.member = member
   return member
 }
@@ -67,10 +80,13 @@ export async function signedInUser(event: H3Event): Promise<SignedIn> {
     event.context.sessions ??= Object.create(null) as Record<string, Session>
     event.context.sessions[name] = { id: known.id, createdAt: known.createdAt, data: structuredClone(known.data) }
   }
-  const { user } = await requireUserSession(event, { message: 'Sign in to continue' })
+  const { user, secure } = await requireUserSession(event, { message: 'Sign in to continue' })
+  const sessionId = secure?.sessionId
+  // A cookie sealed before sign-ins were kept on the server names none, and so cannot be ended: refused.
+  if (typeof sessionId !== 'string') throw createError({ statusCode: 401, statusMessage: 'Your sign-in has ended; sign in again' })
   const session = event.context.sessions?.[name]
   if (sealed && !known && session) remember(sealed, session, maxAge)
-  return { userId: user.id, organisationId: user.organisationId }
+  return { userId: user.id, organisationId: user.organisationId, sessionId }
 }
 
 function remember(sealed: string, session: Session, maxAgeSeconds: number | undefined): void {

@@ -24,5 +24,10 @@ export async function changePassword(member: Member, currentPassword: string, ne
   if (!user?.password_hash || !await verifyPassword(user.password_hash, currentPassword)) {
     throw createError({ statusCode: 422, statusMessage: 'Some fields need a look', data: { fieldErrors: { currentPassword: 'This is not your current password' } } })
   }
-  await useDb()('users').where({ id: member.userId }).update({ password_hash: await hashPassword(newPassword), updated_at: new Date() })
+  const passwordHash = await hashPassword(newPassword)
+  await useDb().transaction(async (trx) => {
+    await trx('users').where({ id: member.userId }).update({ password_hash: passwordHash, updated_at: new Date() })
+    // Whoever knew the old password is signed out everywhere; this phone stays signed in.
+    await endSessionsOf(trx, member.userId, 'password_changed', { keep: member.sessionId })
+  })
 }

@@ -10,9 +10,13 @@ export const locale = z.enum(['en', 'es'])
 export const role = z.enum(roles)
 export const token = z.string().regex(/^[\w-]{20,100}$/, 'This link is not valid')
 
+const currentPassword = z.string().min(1, 'Enter your password').max(200, 'At most 200 characters')
+
 export const signInBody = z.strictObject({
   email,
-  password: z.string().min(1, 'Enter your password').max(200, 'At most 200 characters'),
+  password: currentPassword,
+  /** For a person in more than one company: which one this sign-in is for. */
+  organisationId: z.uuid('Not a valid id').optional(),
 })
 
 export const forgotPasswordBody = z.strictObject({ email })
@@ -21,7 +25,12 @@ export const resetPasswordBody = z.strictObject({ token, password: newPassword }
 
 export const inviteBody = z.strictObject({ email, role })
 
+/** Accepting an invitation as a new person: a name and a new password. */
 export const acceptInvitationBody = z.strictObject({ token, name: personName, password: newPassword })
+/** Accepting it with the account the address already has: that account's own password, nothing else. */
+export const joinWithAccountBody = z.strictObject({ token, password: currentPassword })
+/** What the accept route reads; which of the two it must be, the server knows from the invitation. */
+export const acceptRequestBody = z.strictObject({ token, name: personName.optional(), password: currentPassword })
 
 export const memberPatchBody = z.strictObject({
   role: role.optional(),
@@ -43,4 +52,5 @@ export const tokenParam = z.strictObject({ token })
 
 export type SignInBody = z.infer<typeof signInBody>
 export type InviteBody = z.infer<typeof inviteBody>
+export type AcceptRequestBody = z.infer<typeof acceptRequestBody>
 export type MemberPatchBody = z.infer<typeof memberPatchBody>

@@ -11,6 +11,11 @@ declare module '#auth-utils' {
   interface UserSession {
     signedInAt: number
   }
+  // Kept in the cookie but never sent to the page by GET /api/_auth/session.
+  interface SecureSessionData {
+    /** The row of user_sessions this sign-in is (server/utils/sessions.ts). */
+    sessionId: string
+  }
 }
 
 export {}

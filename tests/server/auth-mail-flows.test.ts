@@ -42,7 +42,7 @@ describe('invitations', () => {
     expect(days).toBeLessThanOrEqual(7)
 
     const preview = await call('GET', `/api/invitations/by-token/${token}`)
-    expect(await preview.json()).toEqual({ email, role: 'crew_lead', organisationName: 'Invitation Hardscapes' })
+    expect(await preview.json()).toEqual({ email, role: 'crew_lead', organisationName: 'Invitation Hardscapes', accountExists: false })
 
     const accepted = await call('POST', '/api/invitations/accept', { body: { token, name: 'Ines Carvalho', password: 'a-new-password-1' } })
     expect(accepted.status).toBe(200)

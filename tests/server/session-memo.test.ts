@@ -20,7 +20,9 @@ beforeAll(async () => {
 /** A session cookie as the server seals it at sign-in, begun at `createdAt`. */
 async function cookieFor(person: FixtureCompany['lead'], createdAt: number): Promise<string> {
   const user = { id: person.userId, name: person.name, role: person.role, organisationId: company.organisationId, locale: 'en' }
-  const event = { context: { sessions: { 'nuxt-session': { id: randomUUID(), createdAt, data: { user, signedInAt: createdAt } } } } } as unknown as H3Event
+  const sessionId = randomUUID()
+  await testDb()('user_sessions').insert({ id: sessionId, user_id: person.userId, organisation_id: company.organisationId })
+  const event = { context: { sessions: { 'nuxt-session': { id: randomUUID(), createdAt, data: { user, secure: { sessionId }, signedInAt: createdAt } } } } } as unknown as H3Event
   return `nuxt-session=${await sealSession(event, { password: sessionPassword(), name: 'nuxt-session', maxAge: maxAgeSeconds })}`
 }
 
@@ -42,6 +44,13 @@ describe('a remembered sign-in', () => {
     const at = cookie.length - 5
     const changed = cookie.slice(0, at) + (cookie[at] === 'A' ? 'g' : 'A') + cookie.slice(at + 1)
     expect((await call('GET', '/api/profile', { cookie: changed })).status).toBe(401)
+  })
+
+  it('refuses a cookie sealed without a sign-in the server keeps, which nothing could end', async () => {
+    const user = { id: company.lead.userId, name: company.lead.name, role: company.lead.role, organisationId: company.organisationId, locale: 'en' }
+    const event = { context: { sessions: { 'nuxt-session': { id: randomUUID(), createdAt: Date.now(), data: { user, signedInAt: Date.now() } } } } } as unknown as H3Event
+    const cookie = `nuxt-session=${await sealSession(event, { password: sessionPassword(), name: 'nuxt-session', maxAge: maxAgeSeconds })}`
+    expect((await call('GET', '/api/profile', { cookie })).status).toBe(401)
   })
 
   it('refuses a deactivated person on their very next request', async () => {

@@ -20,7 +20,7 @@ export function sessionCookieOf(response: Response): Cookie {
   return cookie.split(';')[0] ?? ''
 }
 
-export async function call(method: string, path: string, options: { cookie?: Cookie, body?: unknown, headers?: Record<string, string> } = {}): Promise<Response> {
+export async function call(method: string, path: string, options: { cookie?: Cookie, body?: unknown, headers?: Record<string, string>, signal?: AbortSignal } = {}): Promise<Response> {
   return await fetch(path, {
     method,
     headers: {
@@ -29,5 +29,6 @@ export async function call(method: string, path: string, options: { cookie?: Coo
       ...options.headers,
     },
     body: options.body === undefined ? undefined : typeof options.body === 'string' ? options.body : JSON.stringify(options.body),
+    signal: options.signal,
   })
 }

@@ -1,16 +1,29 @@
 // Starts the built Nitro server (.output, built by `npm test`) against the test database for one test file.
 import { resolve } from 'node:path'
+import { createServer } from 'node:net'
 import { setup } from '@nuxt/test-utils/e2e'
 import { root, serverEnv } from '../../scripts/config'
 
 export const testDatabase = process.env.TAMP_TEST_DB || 'tamp_test'
 
+/** Links in mail point at NUXT_APP_URL only: the test server's own address, as `npm start` sets it. */
 export async function useBuiltServer(env: Record<string, string> = {}): Promise<void> {
+  const port = await freePort()
   await setup({
     rootDir: root,
     build: false,
     server: true,
+    port,
     nuxtConfig: { nitro: { output: { dir: resolve(root, '.output') } } },
-    env: serverEnv(testDatabase, env),
+    env: serverEnv(testDatabase, { NUXT_APP_URL: `http://127.0.0.1:${port}`, ...env }),
+  })
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer().once('error', reject).listen(0, '127.0.0.1', () => {
+      const address = probe.address()
+      probe.close(() => typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no free port')))
+    })
   })
 }

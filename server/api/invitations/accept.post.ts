@@ -1,9 +1,9 @@
-import { acceptInvitationBody } from '../../../shared/schemas/auth'
+import { acceptRequestBody } from '../../../shared/schemas/auth'
 
 export default defineEventHandler(async (event) => {
-  const { token, name, password } = await readBodyWith(event, acceptInvitationBody)
-  const userId = await acceptInvitation(token, name, password)
-  const account = await findAccount({ id: userId })
+  const body = await readBodyWith(event, acceptRequestBody)
+  const { userId, organisationId } = await acceptInvitation(event, body)
+  const account = await findAccount({ id: userId }, organisationId)
   if (!account) throw createError({ statusCode: 500, statusMessage: 'The new account could not be read back' })
   return { user: await startSession(event, account) }
 })
