@@ -81,7 +81,8 @@ export async function createJob(office: Member, body: JobCreateBody): Promise<{ 
     // A double tap, or a retry whose first answer was lost: the job is there already.
     if ((error as { code?: string }).code !== 'ER_DUP_ENTRY') throw error
     const existing = await useDb()('jobs').where({ id: body.id }).first('organisation_id')
-    if (existing?.organisation_id !== office.organisationId) throw fieldError(409, 'This job could not be saved; reload the form and try again', { _form: 'Reload the form' })
+    if (!existing) throw sameLineTwice()
+    if (existing.organisation_id !== office.organisationId) throw fieldError(409, 'This job could not be saved; reload the form and try again', { _form: 'Reload the form' })
     return { status: 200, job: await jobSetup(office, body.id) }
   }
   return { status: 201, job: await jobSetup(office, body.id) }
@@ -90,27 +91,35 @@ export async function createJob(office: Member, body: JobCreateBody): Promise<{ 
 /** Saves the whole form over the job; refused (409) when someone saved it since it was loaded. */
 export async function updateJob(office: Member, jobId: string, body: JobUpdateBody): Promise<JobSetup> {
   const hash = createHash('sha256').update(JSON.stringify(body)).digest('hex')
-  await useDb().transaction(async (trx) => {
-    const job = await trx('jobs').where({ id: jobId, organisation_id: office.organisationId }).forUpdate().first()
-    if (!job) throw createError({ statusCode: 404, statusMessage: 'No such job' })
-    if (job.revision !== body.revision && await isRepeat(trx, office, jobId, job.revision, hash)) return
-    if (job.revision !== body.revision) {
-      throw createError({ statusCode: 409, statusMessage: 'Someone saved this job after you opened it; reload to see their changes', data: { revision: job.revision } })
-    }
-    await checkPeople(trx, office.organisationId, body)
-    await checkIdsFree(trx, jobId, body)
-    await trx('jobs').where({ id: jobId }).update({ ...jobColumns(body), revision: job.revision + 1, updated_at: new Date() })
-    await writeLeads(trx, jobId, body.crewLeadIds)
-    await writeLines(trx, 'zone', jobId, body.zones, await removeZones(trx, jobId, body.zones))
-    await writeLines(trx, 'material_estimate', jobId, body.materials, await removeMaterials(trx, jobId, body.materials))
-    const bidChanged = Number(job.crew_days_bid) !== body.crewDaysBid || Number(job.person_hours_bid) !== body.personHoursBid || job.crew_size !== body.crewSize
-    await audit(trx, office, 'job.updated', 'job', jobId, {
-      revision: job.revision + 1,
-      bodyHash: hash,
-      ...(bidChanged ? { bid: { from: { crewDays: Number(job.crew_days_bid), personHours: Number(job.person_hours_bid), crewSize: job.crew_size }, to: { crewDays: body.crewDaysBid, personHours: body.personHoursBid, crewSize: body.crewSize } } } : {}),
-    })
+  await useDb().transaction(trx => writeJob(trx, office, jobId, body, hash)).catch((error: unknown) => {
+    // What the form's own check cannot see: a name the collation folds that matchKey does not.
+    throw (error as { code?: string }).code === 'ER_DUP_ENTRY' ? sameLineTwice() : error
   })
   return await jobSetup(office, jobId)
+}
+
+const sameLineTwice = () => fieldError(422, 'The estimate lists a material twice in the same unit', { materials: 'The estimate lists a material twice in the same unit (letter case and accents do not count)' })
+
+/** The form written over the job, inside the caller's transaction. */
+async function writeJob(trx: Knex.Transaction, office: Member, jobId: string, body: JobUpdateBody, hash: string): Promise<void> {
+  const job = await trx('jobs').where({ id: jobId, organisation_id: office.organisationId }).forUpdate().first()
+  if (!job) throw createError({ statusCode: 404, statusMessage: 'No such job' })
+  if (job.revision !== body.revision && await isRepeat(trx, office, jobId, job.revision, hash)) return
+  if (job.revision !== body.revision) {
+    throw createError({ statusCode: 409, statusMessage: 'Someone saved this job after you opened it; reload to see their changes', data: { revision: job.revision } })
+  }
+  await checkPeople(trx, office.organisationId, body)
+  await checkIdsFree(trx, jobId, body)
+  await trx('jobs').where({ id: jobId }).update({ ...jobColumns(body), revision: job.revision + 1, updated_at: new Date() })
+  await writeLeads(trx, jobId, body.crewLeadIds)
+  await writeLines(trx, 'zone', jobId, body.zones, await removeZones(trx, jobId, body.zones))
+  await writeLines(trx, 'material_estimate', jobId, body.materials, await removeMaterials(trx, jobId, body.materials))
+  const bidChanged = Number(job.crew_days_bid) !== body.crewDaysBid || Number(job.person_hours_bid) !== body.personHoursBid || job.crew_size !== body.crewSize
+  await audit(trx, office, 'job.updated', 'job', jobId, {
+    revision: job.revision + 1,
+    bodyHash: hash,
+    ...(bidChanged ? { bid: { from: { crewDays: Number(job.crew_days_bid), personHours: Number(job.person_hours_bid), crewSize: job.crew_size }, to: { crewDays: body.crewDaysBid, personHours: body.personHoursBid, crewSize: body.crewSize } } } : {}),
+  })
 }
 
 /** The same person saving the same form twice (a double tap, a retry after a lost answer): the first save stands. */
@@ -153,8 +162,14 @@ async function insertLines<K extends PlanKind>(trx: Knex.Transaction, kind: K, j
 
 /** The lines already stored (`known`) are updated, each bumping the revision the phones check; the new ones inserted. */
 async function writeLines<K extends PlanKind>(trx: Knex.Transaction, kind: K, jobId: string, lines: Line<K>[], known: Set<string>): Promise<void> {
-  // Updates first: a new estimate line may take the material and unit an updated line gave up.
-  for (const line of lines.filter(l => known.has(l.id))) {
+  // Updates first: a new estimate line may take the material and unit an updated line gave up. Two
+  // kept lines may also trade theirs: each goes through a name of its own first, so that the unique
+  // key never sees two lines with one name midway.
+  const kept = lines.filter(l => known.has(l.id))
+  if (kind === 'material_estimate' && kept.length > 1) {
+    for (const line of kept) await trx(tableOf(kind)).where({ id: line.id }).update({ material: `\u0001${line.id}` })
+  }
+  for (const line of kept) {
     await trx(tableOf(kind)).where({ id: line.id }).update({ ...toRow(kind, jobId, line), revision: trx.raw('revision + 1'), updated_at: new Date() })
   }
   await insertLines(trx, kind, jobId, lines.filter(l => !known.has(l.id)))

@@ -5,7 +5,7 @@ import type { H3Event } from 'h3'
 import sharp from 'sharp'
 import type { Member } from './members'
 import { QueueFull, SlotQueue } from './decode-slots'
-import { abortWhenGone, receiveBody, receivingUploads, type BodyLimits } from './upload-body'
+import { abortWhenGone, receiveBody, type BodyLimits } from './request-body'
 import { photoKeys, photoSizes, photoUrls } from '../../shared/utils/photos'
 import { photoContentTypes, type PhotoRecord, type PhotoSizeName, type PhotoSubjectType, type PhotoUploadQuery } from '../../shared/schemas/photos'
 
@@ -19,15 +19,23 @@ export const photoBodyLimit = 20 * 1024 * 1024
 const decodeQueue = new SlotQueue(2, 8)
 const maxReceiving = 12
 const retryAfterSeconds = 5
+let receiving = 0
 
 /** What the photo route is busy with, for /api/health. */
 export function uploadLoad() {
-  return { receiving: receivingUploads(), ...decodeQueue.load() }
+  return { receiving, ...decodeQueue.load() }
 }
 
-function uploadLimits(): BodyLimits {
+async function receivePhoto(event: H3Event): Promise<Buffer> {
   const { photos } = useRuntimeConfig()
-  return { maxBytes: photoBodyLimit, idleMs: Number(photos.idleSeconds) * 1000, totalMs: Number(photos.totalSeconds) * 1000 }
+  const limits: BodyLimits = { maxBytes: photoBodyLimit, idleMs: Number(photos.idleSeconds) * 1000, totalMs: Number(photos.totalSeconds) * 1000, drainBytes: photoBodyLimit }
+  receiving++
+  try {
+    return await receiveBody(event, limits, tooLarge)
+  }
+  finally {
+    receiving--
+  }
 }
 
 // Phone cameras save 12–50 MP by default; anything larger is refused before it is decoded.
@@ -55,9 +63,9 @@ export async function ingestPhoto(event: H3Event, member: Member, id: string, qu
   // A photo already stored answers at once, whatever is still on its way.
   const stored = await storedPhoto(id)
   if (stored) return { status: 200, photo: replayOf(stored, query) }
-  if (receivingUploads() >= maxReceiving) throw busy(event)
+  if (receiving >= maxReceiving) throw busy(event)
   const gone = abortWhenGone(event)
-  const bytes = await receiveBody(event, uploadLimits(), tooLarge)
+  const bytes = await receivePhoto(event)
   // A retry may arrive while the first attempt is still being processed: take them one at a time.
   return await oneAtATime(id, async () => {
     const stored = await storedPhoto(id)

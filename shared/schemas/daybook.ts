@@ -1,19 +1,19 @@
 // The records a crew lead's phone creates, as the phone saves them and the sync route checks them.
 import { z } from 'zod'
 import { dayStatuses, zoneKinds } from '../utils/daybook'
+import { boundedDate } from './dates'
 
 const id = z.uuid('Not a valid id')
 const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`)
 const optionalText = (max: number) => text(max).nullable().optional()
 const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use a time like 07:30').nullable().optional()
-const isoDate = z.iso.date('Use a date like 2026-11-30')
 const number = (min: number, max: number, unit: string) =>
   z.number({ error: 'Enter a number' }).min(min, `At least ${min} ${unit}`).max(max, `At most ${max} ${unit}`)
 
 export const daySheetRecord = z.strictObject({
   id,
   jobId: id,
-  workDate: isoDate,
+  workDate: boundedDate,
   status: z.enum(dayStatuses, { error: 'Choose full day, half day, rain-out or no work' }),
   startedAt: clock,
   finishedAt: clock,

@@ -2,10 +2,11 @@
 // date ranges. The forms check the same schemas before anything is sent.
 import { z } from 'zod'
 import { jobStatuses } from '../utils/daybook'
+import { matchKey } from '../utils/text-match'
 import { materialEstimateRecord, zoneRecord } from './daybook'
+import { boundedDate } from './dates'
 
 const id = z.uuid('Not a valid id')
-const isoDate = z.iso.date('Use a date like 2026-11-30')
 const required = (max: number, message: string) => z.string().trim().min(1, message).max(max, `At most ${max} characters`)
 const optional = (max: number) => z.string().trim().max(max, `At most ${max} characters`).transform(v => v || null).nullable().optional()
 const number = (min: number, max: number, unit: string) =>
@@ -28,7 +29,7 @@ const jobFields = {
   crewDaysBid: number(0.5, 999, 'crew-days').multipleOf(0.5, 'Whole or half crew-days'),
   crewSize: z.number({ error: 'Enter a number' }).int('Whole people only').min(1, 'At least 1 person').max(12, 'At most 12 people'),
   personHoursBid: number(0, 99_999, 'hours'),
-  startDate: isoDate.nullable().optional(),
+  startDate: boundedDate.nullable().optional(),
   homeownerUpdates: z.boolean().default(false),
   notes: optional(4000),
   zones: z.array(jobZone).max(50, 'At most 50 zones').default([]),
@@ -39,7 +40,7 @@ type JobShape = { customerEmail?: string | null, homeownerUpdates: boolean, zone
 const checks = <T extends JobShape>(schema: z.ZodType<T>) => schema
   .refine(job => !job.homeownerUpdates || Boolean(job.customerEmail), { message: 'Homeowner updates need the customer\'s e-mail', path: ['customerEmail'] })
   .refine(job => new Set(job.zones.map(z => z.id)).size === job.zones.length, { message: 'A zone is listed twice', path: ['zones'] })
-  .refine(job => new Set(job.materials.map(m => `${m.material.toLowerCase()}|${m.unit.toLowerCase()}`)).size === job.materials.length, { message: 'The estimate lists a material twice in the same unit', path: ['materials'] })
+  .refine(job => new Set(job.materials.map(m => `${matchKey(m.material)}|${matchKey(m.unit)}`)).size === job.materials.length, { message: 'The estimate lists a material twice in the same unit (letter case and accents do not count)', path: ['materials'] })
   .refine(job => new Set(job.crewLeadIds).size === job.crewLeadIds.length, { message: 'A crew lead is listed twice', path: ['crewLeadIds'] })
 
 /** A new job: the form makes its id once, so a repeated save finds the job already made. */
@@ -88,7 +89,7 @@ export interface JobsTableRow {
 }
 
 export const holidaysBody = z.strictObject({
-  holidays: z.array(isoDate).max(200, 'At most 200 holidays'),
+  holidays: z.array(boundedDate).max(200, 'At most 200 holidays'),
 })
 export const holidaySuggestionQuery = z.object({
   country: z.string().regex(/^[A-Z]{2}$/, 'Use a two-letter country code like US'),
@@ -97,6 +98,6 @@ export const holidaySuggestionQuery = z.object({
 })
 
 /** A date range for the payroll export: at most about a quarter at a time. */
-export const payrollQuery = z.object({ from: isoDate, to: isoDate })
+export const payrollQuery = z.object({ from: boundedDate, to: boundedDate })
   .refine(r => r.from <= r.to, { message: 'The range ends before it starts', path: ['to'] })
   .refine(r => (Date.parse(r.to) - Date.parse(r.from)) / 86_400_000 <= 92, { message: 'At most 92 days at a time', path: ['to'] })

@@ -1,6 +1,7 @@
 // A photo upload: PUT /api/photos/:id with the image bytes as the body and what it shows in the query.
 // The phone queues photos offline and sends them later, so the id is the phone's own UUID.
 import { z } from 'zod'
+import { pastMoment } from './dates'
 
 export const photoSubjectTypes = ['day_sheet', 'lift', 'material_drop', 'review_note'] as const
 export type PhotoSubjectType = (typeof photoSubjectTypes)[number]
@@ -16,7 +17,7 @@ export const photoUploadQuery = z.object({
   subjectType: z.enum(photoSubjectTypes, 'Choose what the photo shows'),
   subjectId: z.uuid('Not a valid id'),
   caption: z.string().trim().max(255, 'At most 255 characters').optional().transform(c => c || undefined),
-  takenAt: z.iso.datetime({ offset: true, message: 'Give the time as an ISO date and time' }).optional(),
+  takenAt: pastMoment.optional(),
 })
 
 export const photoParams = z.strictObject({ id: z.uuid('Not a valid id') })

@@ -1,5 +1,6 @@
 // How each kind of phone record maps onto its table. Column names are the records' keys in snake_case.
 import type { RecordKind, RecordOf } from '../../../shared/schemas/daybook'
+import { matchKey } from '../../../shared/utils/text-match'
 
 type Row = Record<string, unknown>
 
@@ -55,10 +56,14 @@ export function fromRow(kind: RecordKind, row: Row): Row {
   return record
 }
 
-/** A record's natural key as one string (`job|date` of a day sheet), or undefined for kinds without one. */
+/**
+ * A record's natural key as one string (`job|date` of a day sheet), folded as the database compares
+ * it (matchKey), or undefined for kinds without one.
+ */
 export function naturalKey(kind: RecordKind, values: unknown[] | Row): string | undefined {
   const keys = kindMaps[kind].natural
-  return keys && (Array.isArray(values) ? values.slice(0, keys.length) : keys.map(key => values[key])).join('|')
+  return keys && (Array.isArray(values) ? values.slice(0, keys.length) : keys.map(key => values[key]))
+    .map(value => typeof value === 'string' ? matchKey(value) : value).join('|')
 }
 
 /** Whether two versions of a record say the same thing (missing and null are the same). */

@@ -56,16 +56,18 @@ export async function oncePerKey<T, P>(userId: string, key: string, hash: string
       if (winner) return { ...winner, replayed: true }
       // One of these records or natural keys exists (not looked up, or created by another batch after it
       // was): decide again against what is now on the server.
-      if (attempt >= attempts) throw error
+      if (attempt >= attempts) {
+        throw createError({ statusCode: 409, statusMessage: 'Some of these entries clash with what is already on the server; they will be checked again' })
+      }
     }
   }
 }
 
-/** One record appears once in a batch: the phone folds repeated edits into one change. */
+/** One record appears once in a batch (its id in any letter case): the phone folds repeated edits into one change. */
 export function assertDistinctRecords(changes: { kind: string, record: { id: string } }[]): void {
   const seen = new Set<string>()
   for (const [index, change] of changes.entries()) {
-    const key = `${change.kind}:${change.record.id}`
+    const key = `${change.kind}:${change.record.id.toLowerCase()}`
     if (seen.has(key)) throw createError({ statusCode: 422, statusMessage: 'A record appears twice in this batch', data: { fieldErrors: { [`changes.${index}`]: 'Already in this batch' } } })
     seen.add(key)
   }
