@@ -3,7 +3,8 @@ import { z } from 'zod'
 import { dayStatuses, zoneKinds } from '../utils/daybook'
 import { boundedDate } from './dates'
 
-const id = z.uuid('Not a valid id')
+// Lower case, as the database compares them: one record whatever case its id is sent in.
+const id = z.uuid('Not a valid id').transform(value => value.toLowerCase())
 const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`)
 const optionalText = (max: number) => text(max).nullable().optional()
 const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use a time like 07:30').nullable().optional()
