@@ -83,8 +83,8 @@ export const useDaybookStore = defineStore('daybook', () => {
 
   /**
    * Compacted depth already in a zone below a lift: the zone's lifts on earlier days, then those
-   * logged before it on its own day. A sheet not saved yet is the newest day. Only the days the
-   * phone holds count (the snapshot's recent days and everything logged on it).
+   * logged before it on its own day. A sheet not saved yet is the newest day. The days the phone
+   * holds count lift by lift; older ones as the zone's total from the snapshot.
    */
   function compactedBeforeIn(zoneId: string, sheetId: string, liftId?: string): number {
     const dateOf = new Map(sheets.value.map(s => [s.id, s.workDate]))
@@ -97,7 +97,9 @@ export const useDaybookStore = defineStore('daybook', () => {
     const sameDay = liftsOf(sheetId).filter(l => l.zoneId === zoneId)
     const at = liftId ? sameDay.findIndex(l => l.id === liftId) : -1
     const below = [...earlier, ...(at >= 0 ? sameDay.slice(0, at) : sameDay)]
-    return below.reduce((sum, l) => sum + l.compactedIn, 0)
+    // What was compacted before the days the phone holds comes with the zone in the snapshot.
+    const older = jobs.value.flatMap(j => j.zones).find(z => z.id === zoneId)?.compactedEarlierIn ?? 0
+    return below.reduce((sum, l) => sum + l.compactedIn, older)
   }
 
   function lastCrewFor(jobId: string, beforeDate: string): { crewMemberId: string, hours: number }[] {

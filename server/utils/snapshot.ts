@@ -37,9 +37,10 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
     sheetIds.length ? db('photos').whereIn('day_sheet_id', sheetIds).select('id', 'day_sheet_id as daySheetId', 'subject_type as subjectType', 'subject_id as subjectId', 'caption', 'taken_at as takenAt', 'width', 'height') : [],
   ])
   const { reviewFlags, flagAnswers } = await openFlagsOf(jobIds)
+  const earlier = await compactedBeforeWindow(jobIds)
   return {
     fetchedAt: new Date().toISOString(),
-    jobs: jobs.map(job => ({ ...job, zones: zones.filter(z => z.jobId === job.id) })),
+    jobs: jobs.map(job => ({ ...job, zones: zones.filter(z => z.jobId === job.id).map(z => ({ ...z, compactedEarlierIn: earlier.get(z.id) ?? 0 })) })),
     roster,
     zoneRecords,
     materialEstimates,
@@ -51,6 +52,18 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
     reviewFlags,
     flagAnswers,
   }
+}
+
+/**
+ * Base already compacted in each zone on days the snapshot leaves out, so that the phone's depth check
+ * counts a walk's base laid more than a month ago.
+ */
+async function compactedBeforeWindow(jobIds: string[]): Promise<Map<string, number>> {
+  if (!jobIds.length) return new Map()
+  const rows: { zoneId: string, inches: number | string }[] = await useDb()('lifts as l').join('day_sheets as s', 's.id', 'l.day_sheet_id')
+    .whereIn('s.job_id', jobIds).andWhereRaw('s.work_date < CURDATE() - INTERVAL ? DAY', [recentDays])
+    .groupBy('l.zone_id').select('l.zone_id as zoneId', useDb().raw('SUM(l.compacted_in) AS inches'))
+  return new Map(rows.map(r => [r.zoneId, Number(r.inches)]))
 }
 
 /** The open flags on these jobs (whatever the day's age: a flag stays until it is resolved), with their answers. */

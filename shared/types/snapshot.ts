@@ -10,6 +10,8 @@ export interface SnapshotZone {
   baseExtensionIn: number | null
   areaSqFt: number | null
   lengthFt: number | null
+  /** Compacted base placed in the zone on days older than the snapshot holds (its lifts are not on the phone). */
+  compactedEarlierIn: number
 }
 
 export interface SnapshotJob {

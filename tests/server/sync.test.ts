@@ -168,4 +168,21 @@ describe('the phone\'s offline copy', () => {
     expect(snapshot.daySheets.find((s: { id: string }) => s.id === day.sheetId)).toMatchObject({ revision: 1, status: 'full_day', startedAt: '07:00' })
     expect(snapshot.timeEntries.filter((e: { daySheetId: string }) => e.daySheetId === day.sheetId)).toHaveLength(3)
   })
+
+  it('carries the base compacted in a zone on days older than it holds, so the phone\'s depth check counts it', async () => {
+    const other = await createCompany('Old Base Hardscapes')
+    const { zoneId: oldZone, crew: oldCrew } = await addZoneAndCrew(other.organisationId, other.jobId)
+    const daysAgo = (n: number) => new Date(Date.now() - n * 86_400_000).toISOString().slice(0, 10)
+    const otherLead = await signIn(other.lead.email)
+    // Two lifts of 3 in, 45 days ago (outside the snapshot's days), and one of 2 in yesterday, which the phone holds as a lift.
+    const old = dayWithWork(other.jobId, oldZone, oldCrew, daysAgo(45))
+    const oldLift = old.changes.find(c => c.kind === 'lift')!
+    const second = { ...oldLift, record: { ...oldLift.record, id: randomUUID() } }
+    const recent = dayWithWork(other.jobId, oldZone, oldCrew, daysAgo(1))
+    const thinner = recent.changes.map(c => c.kind === 'lift' ? { ...c, record: { ...c.record, looseIn: 3, compactedIn: 2 } } : c)
+    expect((await sync(otherLead, [...old.changes, second, ...thinner])).response.status).toBe(200)
+    const snapshot = await (await call('GET', '/api/daybook/snapshot', { cookie: otherLead })).json()
+    expect(snapshot.daySheets.map((s: { id: string }) => s.id)).toEqual([recent.sheetId])
+    expect(snapshot.jobs[0].zones[0]).toMatchObject({ id: oldZone, compactedEarlierIn: 6 })
+  })
 })
