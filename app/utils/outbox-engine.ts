@@ -1,7 +1,8 @@
 // The phone's sender. Every save lands in IndexedDB first (idb.ts); this engine sends what waits, one
 // sender at a time across tabs, and removes an entry only once the server has acknowledged it.
 // Network errors, 5xx, 408 and 429 are retried with exponential backoff and jitter; 400/422 park the
-// entry for the crew lead; 401 stops and keeps everything until they sign in again.
+// entry for the crew lead; 401 stops and keeps everything until they sign in again (or, when the
+// office turned their access off, until it is turned on again).
 import type { SyncKind, SyncAnswer } from '../../shared/schemas/daybook'
 import { idb } from './idb'
 import type { InflightBatch, LocalRecord, OutboxEntry, OutboxProgress, OutboxStatus, PhotoMeta } from './outbox-types'
@@ -149,7 +150,7 @@ export class OutboxEngine {
       return await this.retryLater(batch.keys, 'sending')
     }
     if (response.status === 401) {
-      this.setStatus('signed_out')
+      this.setStatus(await signedOutStatus(response))
       return 'stop'
     }
     if (response.status >= 500 || response.status === 408 || response.status === 429) {
@@ -271,6 +272,17 @@ export class OutboxEngine {
     else if (entry.baseRevision === null) await idb.remove('records', key)
     await idb.remove('outbox', key)
     this.deps.changed()
+  }
+}
+
+/** Why the server refused the sign-in: ended (sign in again), or access turned off by the office. */
+async function signedOutStatus(response: Response): Promise<'signed_out' | 'access_ended'> {
+  try {
+    const body = await response.json() as { data?: { reason?: string } }
+    return body.data?.reason === 'deactivated' ? 'access_ended' : 'signed_out'
+  }
+  catch {
+    return 'signed_out'
   }
 }
 

@@ -54,7 +54,8 @@ export interface LocalRecord {
   reviewState?: string
 }
 
-export type OutboxStatus = 'idle' | 'sending' | 'offline' | 'signed_out' | 'waiting_retry'
+/** `access_ended`: the office turned this person's access off; the phone keeps what it holds. */
+export type OutboxStatus = 'idle' | 'sending' | 'offline' | 'signed_out' | 'access_ended' | 'waiting_retry'
 
 export interface OutboxProgress { records: { done: number, total: number }, bytes: { done: number, total: number } }
 

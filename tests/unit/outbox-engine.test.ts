@@ -99,6 +99,14 @@ describe('the outbox on the phone', () => {
     expect(await idb.get('meta', 'inflight')).toBeDefined()
   })
 
+  it('keeps everything and says the office turned access off when the server says so', async () => {
+    const h = harness([json({ statusMessage: 'Your access to this company was turned off; ask the office', data: { reason: 'deactivated' } }, 401)])
+    await h.engine.saveRecord('day_sheet', sheet('s5'), 'upsert', 'Day')
+    await h.engine.run()
+    expect(h.engine.status).toBe('access_ended')
+    expect(await h.engine.entries()).toHaveLength(1)
+  })
+
   it('parks a record the server refuses (422) for the crew lead to fix, with the server\'s reason', async () => {
     const h = harness([json({ statusMessage: 'At most 200 changes a batch' }, 422)])
     await h.engine.saveRecord('day_sheet', sheet('s5'), 'upsert', 'Day')
