@@ -31,7 +31,8 @@ const tooLarge = () => createError({ statusCode: 413, statusMessage: `The reques
 async function readBoundedBody(event: H3Event): Promise<void> {
   const headers = event.node.req.headers
   if (!Number(headers['content-length']) && !/\bchunked\b/i.test(String(headers['transfer-encoding'] ?? ''))) return
-  event._requestBody = await receiveBody(event, { maxBytes: jsonBodyLimit, idleMs: 30_000, totalMs: 120_000, drainBytes: 4 * 1024 * 1024 }, tooLarge)
+  // A plain Uint8Array, the type h3 declares there (it reads it as a Buffer).
+  event._requestBody = new Uint8Array(await receiveBody(event, { maxBytes: jsonBodyLimit, idleMs: 30_000, totalMs: 120_000, drainBytes: 4 * 1024 * 1024 }, tooLarge))
 }
 
 function safeHost(origin: string): string | undefined {

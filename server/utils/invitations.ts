@@ -90,8 +90,11 @@ export async function invitationPreview(token: string) {
  * own password, which is never set or replaced here, and nothing of its other companies changes.
  */
 export async function acceptInvitation(event: H3Event, body: AcceptRequestBody): Promise<{ userId: string, organisationId: string }> {
+  // A name says the form was for a new person: its password rules apply before the link is looked up.
+  const asNew = body.name === undefined ? undefined : acceptInvitationBody.safeParse(body)
+  if (asNew && !asNew.success) throw invalidInput(asNew.error)
   const invitation = await invitationByToken(body.token)
-  const newPerson = invitation.userId ? undefined : acceptInvitationBody.safeParse(body)
+  const newPerson = invitation.userId ? undefined : asNew ?? acceptInvitationBody.safeParse(body)
   if (newPerson && !newPerson.success) throw invalidInput(newPerson.error)
   if (invitation.userId) await checkOwnPassword(event, invitation.email, invitation.passwordHash, body.password)
   const passwordHash = newPerson?.success ? await hashPassword(newPerson.data.password) : undefined

@@ -1,8 +1,10 @@
+import { randomUUID } from 'node:crypto'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { useBuiltServer } from '../support/server'
 import { createCompany, uniqueEmail, type FixtureCompany } from '../support/fixtures'
 import { call, signIn } from '../support/http'
 import { testDb } from '../support/db'
+import { newTestToken } from '../support/tokens'
 
 await useBuiltServer()
 
@@ -25,7 +27,6 @@ describe('bad input changes nothing and says what is wrong', () => {
     { name: 'a missing role', path: '/api/invitations', body: { email: uniqueEmail('x') }, field: 'role' },
     { name: 'an extra field', path: '/api/invitations', body: { email: uniqueEmail('x'), role: 'crew_lead', admin: true }, field: 'admin' },
     { name: 'a short password', path: '/api/invitations/accept', body: { token: 'a'.repeat(43), name: 'Pat', password: 'short' }, field: 'password' },
-    { name: 'a missing name', path: '/api/invitations/accept', body: { token: 'a'.repeat(43), password: 'long-enough-pass' }, field: 'name' },
     { name: 'a name far too long', path: '/api/invitations/accept', body: { token: 'a'.repeat(43), name: 'x'.repeat(500), password: 'long-enough-pass' }, field: 'name' },
     { name: 'a password of the wrong type', path: '/api/auth/sign-in', body: { email: 'someone@fixture.test', password: 12345 }, field: 'password' },
     { name: 'a reset with a short password', path: '/api/auth/reset-password', body: { token: 'b'.repeat(43), password: 'short' }, field: 'password' },
@@ -41,6 +42,16 @@ describe('bad input changes nothing and says what is wrong', () => {
       expect(await counts()).toEqual(before)
     })
   }
+
+  it('answers 422 asking for a name when a new person accepts without one, and makes no account', async () => {
+    const { token, hash } = newTestToken()
+    await testDb()('invitations').insert({ id: randomUUID(), organisation_id: company.organisationId, email: uniqueEmail('nameless'), role: 'crew_lead', token_hash: hash, expires_at: new Date(Date.now() + 86_400_000) })
+    const before = await counts()
+    const response = await call('POST', '/api/invitations/accept', { body: { token, password: 'long-enough-pass' } })
+    expect(response.status).toBe(422)
+    expect((await response.json()).data.fieldErrors.name).toEqual(expect.any(String))
+    expect(await counts()).toEqual(before)
+  })
 
   it('answers 400 for a body that is not JSON', async () => {
     const response = await call('POST', '/api/invitations', { cookie: office, body: '{"email": ', headers: { 'content-type': 'application/json' } })

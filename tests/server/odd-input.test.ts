@@ -23,7 +23,7 @@ beforeAll(async () => {
   office = await signIn(company.office.email)
 })
 
-const sheet = (workDate: string, id = randomUUID()) => ({ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id, jobId: company.jobId, workDate, status: 'full_day', hoursLost: 0 } })
+const sheet = (workDate: string, id: string = randomUUID()) => ({ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id, jobId: company.jobId, workDate, status: 'full_day', hoursLost: 0 } })
 const line = (material: string, unit = 'ton') => ({ kind: 'material_estimate', op: 'upsert', baseRevision: null, record: { id: randomUUID(), jobId: company.jobId, material, quantity: 4, unit } })
 const linesOf = async () => await testDb()('material_estimates').where({ job_id: company.jobId }).orderBy('material').pluck('material')
 

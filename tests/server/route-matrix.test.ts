@@ -15,11 +15,12 @@ await useBuiltServer()
 const callers = ['anonymous', 'crewLead', 'foreman', 'office', 'otherOffice'] as const
 type Caller = (typeof callers)[number]
 type Expected = [anonymous: number, crewLead: number, foreman: number, office: number, otherOffice: number]
-interface Case { request: () => Promise<{ path: string, body?: unknown, headers?: Record<string, string> }>, expect: Expected }
+interface Case { request: (caller: Caller) => Promise<{ path: string, body?: unknown, headers?: Record<string, string> }>, expect: Expected }
 
 let ours: FixtureCompany
 let theirs: FixtureCompany
 const cookies = {} as Record<Caller, Cookie | undefined>
+const spares = {} as Record<Caller, Cookie | undefined>
 
 async function openInvitation(): Promise<string> {
   const id = randomUUID()
@@ -71,7 +72,12 @@ async function ourJobEdit() {
 const cases: Record<string, Case> = {
   'GET /api/health': { request: path('/api/health'), expect: [200, 200, 200, 200, 200] },
   'POST /api/auth/sign-in': { request: async () => ({ path: '/api/auth/sign-in', body: { email: uniqueEmail('nobody'), password: 'wrong' } }), expect: [401, 401, 401, 401, 401] },
-  'POST /api/auth/sign-out': { request: path('/api/auth/sign-out'), expect: [200, 200, 200, 200, 200] },
+  // Signing out ends the sign-in it is sent with: each caller signs out a second sign-in of their own.
+  'POST /api/auth/sign-out': { request: async (caller) => {
+    const cookie = spares[caller]
+    const headers: Record<string, string> = cookie ? { cookie } : {}
+    return { path: '/api/auth/sign-out', headers }
+  }, expect: [200, 200, 200, 200, 200] },
   'POST /api/auth/forgot-password': { request: async () => ({ path: '/api/auth/forgot-password', body: { email: uniqueEmail('nobody') } }), expect: [202, 202, 202, 202, 202] },
   'POST /api/auth/reset-password': { request: async () => ({ path: '/api/auth/reset-password', body: { token: fakeToken, password: 'long-enough-password' } }), expect: [400, 400, 400, 400, 400] },
   'GET /api/invitations/by-token/:token': { request: path(`/api/invitations/by-token/${fakeToken}`), expect: [404, 404, 404, 404, 404] },
@@ -129,6 +135,10 @@ beforeAll(async () => {
   cookies.foreman = await signIn(ours.foreman.email)
   cookies.office = await signIn(ours.office.email)
   cookies.otherOffice = await signIn(theirs.office.email)
+  spares.crewLead = await signIn(ours.lead.email)
+  spares.foreman = await signIn(ours.foreman.email)
+  spares.office = await signIn(ours.office.email)
+  spares.otherOffice = await signIn(theirs.office.email)
 })
 
 describe('route matrix', () => {
@@ -139,7 +149,7 @@ describe('route matrix', () => {
   for (const [route, c] of Object.entries(cases)) {
     const method = route.split(' ')[0] ?? 'GET'
     it.each(callers.map((caller, i) => [caller, c.expect[i]] as const))(`${route} as %s answers %i`, async (caller, status) => {
-      const { path: url, body, headers } = await c.request()
+      const { path: url, body, headers } = await c.request(caller)
       // Photo uploads send raw image bytes, which call() would turn into JSON.
       const response = body instanceof Uint8Array
         ? await fetch(url, { method, body: new Uint8Array(body), headers: { ...headers, ...(cookies[caller] ? { cookie: cookies[caller] } : {}) } })
