@@ -109,6 +109,7 @@ export class OutboxEngine {
     if (!userId) return this.setStatus('signed_out')
     if (!this.deps.online()) return this.setStatus('offline')
     this.setStatus('sending')
+    await this.recoverStalePhotos(userId)
     const due = (await this.entries()).filter(e => e.userId === userId && e.state === 'queued' && e.nextAttemptAt <= this.now())
     this.progress = {
       records: { done: 0, total: due.filter(e => e.kind !== 'photo').length },
@@ -120,6 +121,16 @@ export class OutboxEngine {
     }
     if (outcome === 'done') outcome = await this.sendPhotos(userId)
     if (outcome === 'done') this.setStatus('idle')
+  }
+
+  /**
+   * A photo left 'sending' by a page that died mid-upload (reloaded, killed for the camera) goes back
+   * to the queue: this run holds the one sender's lock, so no upload of it is under way. The upload is
+   * idempotent by id, so a photo the server already stored is answered 200 and cleared.
+   */
+  private async recoverStalePhotos(userId: string): Promise<void> {
+    const stale = (await this.entries()).filter(e => e.userId === userId && e.kind === 'photo' && e.state === 'sending')
+    if (stale.length) await idb.putMany('outbox', stale.map(e => [e.key, { ...e, state: 'queued', nextAttemptAt: 0 }]))
   }
 
   /** The unanswered batch, or a new one of due record changes in the order they were made. */

@@ -152,6 +152,18 @@ describe('the outbox on the phone', () => {
     expect(await idb.get('photos', 'p1')).toBeUndefined()
   })
 
+  it('sends again a photo left "Sending" by a page that died mid-upload, and clears it when the server has it', async () => {
+    const h = harness([], [{ status: 200 }])
+    await h.engine.savePhoto('p2', new Uint8Array([1, 2, 3]).buffer, { subjectType: 'day_sheet', subjectId: 's9', type: 'image/jpeg', size: 3, width: 10, height: 10 }, 'Photo')
+    // What the dead page left behind: the entry marked as being sent, with nobody sending it.
+    const entry = await idb.get<Record<string, unknown>>('outbox', 'photo:p2')
+    await idb.put('outbox', 'photo:p2', { ...entry, state: 'sending' })
+    await h.engine.run()
+    expect(h.uploaded).toEqual([expect.stringContaining('/api/photos/p2?')])
+    expect(await h.engine.entries()).toHaveLength(0)
+    expect(await idb.get('photos', 'p2')).toBeUndefined()
+  })
+
   it('forgets a record created and removed before it ever left the phone', async () => {
     const h = harness([])
     await h.engine.saveRecord('day_sheet', sheet('s8'), 'upsert', 'Day')
