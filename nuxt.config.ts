@@ -98,6 +98,9 @@ export default defineNuxtConfig({
   },
   nitro: {
     plugins: ['~~/server/early/request-start.ts'],
+    // The build's JS, CSS and other text files are written brotli- and gzip-compressed beside the
+    // originals and served by Accept-Encoding; answers made per request go through server/middleware/02.compression.ts.
+    compressPublicAssets: { brotli: true, gzip: true },
     handlers: [{ route: '/api/dev/mail', method: 'get', handler: '~~/server/dev/mail.get.ts', env: 'dev' }],
     typescript: { tsConfig: { compilerOptions: { noUncheckedIndexedAccess: true } } },
   },

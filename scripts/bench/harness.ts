@@ -35,7 +35,7 @@ export async function startServer(database: string, env: Record<string, string> 
   const profile = process.env.BENCH_CPU_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${resolve(process.env.BENCH_CPU_PROFILE)}`] : []
   const child = spawn(process.execPath, [...profile, resolve(root, '.output', 'server', 'index.mjs')], {
     stdio: ['ignore', 'ignore', 'inherit'],
-    env: { ...process.env, ...serverEnv(database, env), PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'production' },
+    env: { ...process.env, ...serverEnv(database, { NUXT_APP_URL: `http://127.0.0.1:${port}`, ...env }), PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'production' },
   })
   const url = `http://127.0.0.1:${port}`
   await waitForHealth(`${url}/api/health`)
