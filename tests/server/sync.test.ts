@@ -160,13 +160,31 @@ describe('the phone\'s offline copy', () => {
     const day = dayWithWork(company.jobId, zoneId, crew, new Date().toISOString().slice(0, 10))
     await sync(lead, day.changes)
     const response = await call('GET', '/api/daybook/snapshot', { cookie: lead })
-    expect(response.headers.get('cache-control')).toBe('no-store')
+    expect(response.headers.get('cache-control')).toBe('private, no-cache')
     const snapshot = await response.json()
     expect(snapshot.jobs.map((j: { id: string }) => j.id)).toEqual([company.jobId])
     expect(snapshot.jobs[0].zones.map((z: { id: string }) => z.id)).toEqual([zoneId])
     expect(snapshot.roster.map((p: { id: string }) => p.id)).toEqual(expect.arrayContaining(crew))
     expect(snapshot.daySheets.find((s: { id: string }) => s.id === day.sheetId)).toMatchObject({ revision: 1, status: 'full_day', startedAt: '07:00' })
     expect(snapshot.timeEntries.filter((e: { daySheetId: string }) => e.daySheetId === day.sheetId)).toHaveLength(3)
+  })
+
+  it('answers a refresh with nothing new with 304 and no body, and a changed daybook with its new state', async () => {
+    const first = await call('GET', '/api/daybook/snapshot', { cookie: lead })
+    const etag = first.headers.get('etag') ?? ''
+    expect(etag).toMatch(/^"[\w-]{32}"$/)
+    const unchanged = await call('GET', '/api/daybook/snapshot', { cookie: lead, headers: { 'if-none-match': etag } })
+    expect(unchanged.status).toBe(304)
+    expect(await unchanged.text()).toBe('')
+    // The foreman's view of the same jobs is another daybook: never the crew lead's tag.
+    const foremanTag = (await call('GET', '/api/daybook/snapshot', { cookie: await signIn(company.foreman.email), headers: { 'if-none-match': etag } }))
+    expect(foremanTag.status).toBe(200)
+    const day = dayWithWork(company.jobId, zoneId, crew, new Date(Date.now() - 2 * 86_400_000).toISOString().slice(0, 10))
+    await sync(lead, day.changes)
+    const changed = await call('GET', '/api/daybook/snapshot', { cookie: lead, headers: { 'if-none-match': etag } })
+    expect(changed.status).toBe(200)
+    expect(changed.headers.get('etag')).not.toBe(etag)
+    expect((await changed.json()).daySheets.map((s: { id: string }) => s.id)).toContain(day.sheetId)
   })
 
   it('carries the base compacted in a zone on days older than it holds, so the phone\'s depth check counts it', async () => {
