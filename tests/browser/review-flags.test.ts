@@ -172,7 +172,7 @@ describe('a flag from the foreman to the crew lead\'s phone and back', () => {
   it('clears the flag from the crew lead\'s phone and shows the day as approved there', async () => {
     await lead.reload()
     await waitForApp(lead)
-    await lead.getByText('The foreman approved this day. To change it, ask them to reopen it.').waitFor()
+    await lead.getByTestId('review-note').filter({ hasText: /The foreman approved this day of .+\. It can no longer be changed here/ }).waitFor()
     expect(await lead.getByTestId(`flag-${flagId}`).count()).toBe(0)
   })
 
@@ -194,7 +194,7 @@ describe('a flag from the foreman to the crew lead\'s phone and back', () => {
     }), `day_sheet:${sheetId}`)
     await expect.poll(phoneState, { timeout: 15_000 }).toBe('reopened')
     await lead.getByText('Front walk · 3/4 in crushed stone').waitFor()
-    expect(await lead.getByText('The foreman approved this day. To change it, ask them to reopen it.').count()).toBe(0)
+    expect(await lead.getByTestId('review-note').filter({ hasText: 'The foreman approved this day' }).count()).toBe(0)
   })
 })
 
