@@ -6,8 +6,14 @@
 import compression from 'compression'
 import { constants } from 'node:zlib'
 
-// Brotli at quality 4 costs about what gzip's default does, and compresses JSON better.
-const compress = compression({ threshold: 1024, brotli: { params: { [constants.BROTLI_PARAM_QUALITY]: 4 } } })
+// Brotli at quality 4 costs about what gzip's default does, and compresses JSON better. An error page
+// is rendered by Nuxt through an internal request to /__nuxt_error whose body it copies as text: that
+// inner answer must stay plain (compressed, the page arrived empty); the outer one is compressed.
+const compress = compression({
+  threshold: 1024,
+  brotli: { params: { [constants.BROTLI_PARAM_QUALITY]: 4 } },
+  filter: (req, res) => !req.url?.startsWith('/__nuxt_error') && compression.filter(req, res),
+})
 
 // Its types name Express's request and response; it uses only what Node's own have.
 type CompressArgs = Parameters<typeof compress>

@@ -67,6 +67,13 @@ describe('compressed answers', () => {
     expect(compressed.bytes).toBeLessThan(plain.bytes)
   })
 
+  it('sends a page that is not there as a readable page, compressed', async () => {
+    const compressed = await get('/no-such-page', { 'accept': 'text/html', 'accept-encoding': 'br, gzip' })
+    expect(compressed.status).toBe(404)
+    expect(compressed.encoding).toBe('br')
+    expect(compressed.bytes).toBeGreaterThan(500)
+  })
+
   it('leaves a small answer as it is', async () => {
     const health = await get('/api/health', { 'accept-encoding': 'br, gzip' })
     expect(health.status).toBe(200)
