@@ -1,7 +1,7 @@
 // The checks a compacted lift of base must pass, written once: the phone runs them as the lift is
 // logged and the server runs them again for the foreman's review. Each check carries the rule it
 // applies (in words), where the rule comes from and how far to trust it (see trade-data.ts).
-import { baseExtensionCheck, type ExtensionZoneKind } from './planning-base'
+import { baseExtensionCheck, withinLooseLimit, type ExtensionZoneKind } from './planning-base'
 import { COMPACTOR_CLASSES, type TradeBasis, type TradeSourced } from './trade-data'
 
 export const liftCheckIds = ['loose_thickness', 'design_depth', 'base_extension', 'photo_before_cover'] as const
@@ -71,7 +71,7 @@ export function checkLooseThickness(lift: LiftCheckInput['lift']): LiftCheck {
     }
   }
   const values = { looseIn: lift.looseIn, maxIn: machine.maxLooseLiftIn, compactorClass: machine.id }
-  const within = lift.looseIn <= machine.maxLooseLiftIn + EPSILON
+  const within = withinLooseLimit(lift.looseIn, machine.maxLooseLiftIn)
   return {
     id: 'loose_thickness', status: within ? 'pass' : 'fail', code: within ? 'within' : 'too_thick', values,
     rule: within
@@ -83,7 +83,9 @@ export function checkLooseThickness(lift: LiftCheckInput['lift']): LiftCheck {
 
 export function checkDesignDepth(input: LiftCheckInput): LiftCheck {
   const design = input.zone?.designBaseDepthIn
-  const reachedIn = round2(input.compactedBeforeIn + input.lift.compactedIn)
+  // Compared unrounded (a 6 1/16 in design reached exactly is on depth); rounded only to be shown.
+  const placedIn = input.compactedBeforeIn + input.lift.compactedIn
+  const reachedIn = round2(placedIn)
   if (design === null || design === undefined || design <= 0) {
     return {
       id: 'design_depth', status: 'warn', code: 'no_design', values: { reachedIn },
@@ -92,15 +94,15 @@ export function checkDesignDepth(input: LiftCheckInput): LiftCheck {
     }
   }
   const over = DESIGN_DEPTH_OVER_TOLERANCE
-  const values = { reachedIn, designIn: design, toleranceIn: over.valueIn, diffIn: round2(Math.abs(reachedIn - design)) }
-  if (reachedIn > design + over.valueIn + EPSILON) {
+  const values = { reachedIn, designIn: design, toleranceIn: over.valueIn, diffIn: round2(Math.abs(placedIn - design)) }
+  if (placedIn > design + over.valueIn + EPSILON) {
     return {
       id: 'design_depth', status: 'warn', code: 'over', values,
       rule: `Base reaches ${reachedIn} in, ${values.diffIn} in over the ${design} in design (more than ${over.valueIn} in over): check the finished grade still works.`,
       source: `${DESIGN_SOURCE}; ${over.source}`, basis: over.basis,
     }
   }
-  if (reachedIn + EPSILON >= design) {
+  if (placedIn + EPSILON >= design) {
     return {
       id: 'design_depth', status: 'pass', code: 'reached', values,
       rule: `Base reaches ${reachedIn} in against the ${design} in design (up to ${over.valueIn} in over is on depth).`,

@@ -15,6 +15,8 @@ export type MeasureErrorCode = 'empty' | 'decimal-comma' | 'bad-fraction' | 'unr
 export class MeasureError extends RangeError {
   readonly code: MeasureErrorCode
   readonly text: string
+  /** The field it was typed into, when a screen knows it. */
+  field?: string
   constructor(code: MeasureErrorCode, text: string) {
     const why: Record<MeasureErrorCode, string> = {
       'empty': 'nothing was typed',
@@ -125,6 +127,16 @@ export function parseMeasure(text: string, unit: MeasureUnit): number {
   }
   if (!Number.isFinite(value)) throw new MeasureError('unreadable', typed)
   return sign ? -value : value
+}
+
+/**
+ * A plain number as typed (a factor, a percent, a count), read like a measure but with no unit:
+ * 1,200 and 1 1/2 are read, 2,5 and 5 ft are refused with a MeasureError.
+ */
+export function parseNumber(text: string): number {
+  const typed = String(text ?? '')
+  if (/[a-z'"′″’”]/i.test(normalise(typed))) throw new MeasureError('unreadable', typed)
+  return parseMeasure(typed, 'in')
 }
 
 function gcd(a: number, b: number): number {

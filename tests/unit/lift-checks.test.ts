@@ -136,3 +136,11 @@ describe('all checks of a lift', () => {
     expect(worstStatus(checkLift(input({ compactedBeforeIn: 3 })))).toBe('pass')
   })
 })
+
+describe('depth reached to a fraction of an inch', () => {
+  // The zone's own design (Plan screen); fractions of an inch as crews measure them.
+  it('a 6 1/16 in design reached exactly by two lifts passes instead of being called short by rounding', () => {
+    const zone = { ...walk, designBaseDepthIn: 6.0625 }
+    expect(check('design_depth', { zone, compactedBeforeIn: 3.03125, lift: { looseIn: 3.8, compactedIn: 3.03125 }, lastInZone: true }).status).toBe('pass')
+  })
+})
