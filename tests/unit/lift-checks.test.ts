@@ -137,6 +137,49 @@ describe('all checks of a lift', () => {
   })
 })
 
+describe('a lift record that cannot be checked', () => {
+  // Common practice: compaction only ever thins a lift, and a thickness is a positive number.
+  it.each([
+    ['a NaN loose thickness', { looseIn: Number.NaN }],
+    ['a negative loose thickness', { looseIn: -4 }],
+    ['a zero loose thickness', { looseIn: 0 }],
+    ['a compacted thickness over the loose one', { looseIn: 3, compactedIn: 3.5 }],
+    ['a NaN compacted thickness', { compactedIn: Number.NaN }],
+  ])('%s is "not checked, bad record", never a pass of the thickness or the depth', (_label, lift) => {
+    for (const id of ['loose_thickness', 'design_depth']) {
+      const result = check(id, { lift, compactedBeforeIn: 3 })
+      expect(result.status, id).toBe('warn')
+      expect(result.code, id).toBe('bad_record')
+      expect(result.basis, id).toBeNull()
+    }
+  })
+
+  it('a lift compacted to exactly its loose thickness is still checked (a factor of 1 is allowed)', () => {
+    expect(check('loose_thickness', { lift: { looseIn: 4, compactedIn: 4 } }).code).toBe('within')
+  })
+
+  it('a stored negative or NaN base extension is "not checked, bad record", not a throw', () => {
+    for (const baseExtensionIn of [-1, Number.NaN]) {
+      const result = check('base_extension', { zone: { ...walk, baseExtensionIn } })
+      expect(result).toMatchObject({ status: 'warn', code: 'bad_record', basis: null })
+    }
+  })
+
+  it('a zone kind this phone does not know gives a "not checked" result instead of stopping the list', () => {
+    const checks = checkLift(input({ zone: { ...walk, kind: 'pool' as 'other' } }))
+    expect(checks.map(c => c.id)).toEqual(['loose_thickness', 'design_depth', 'base_extension', 'photo_before_cover'])
+    expect(checks[2]).toMatchObject({ status: 'warn', code: 'bad_record' })
+  })
+
+  it('a negative depth placed before is "not checked", not a pass of the depth', () => {
+    expect(check('design_depth', { compactedBeforeIn: -3 }).code).toBe('bad_record')
+  })
+
+  it('a bad record makes the whole lift at best "check", never "pass"', () => {
+    expect(worstStatus(checkLift(input({ compactedBeforeIn: 3, lift: { looseIn: -3 } })))).not.toBe('pass')
+  })
+})
+
 describe('depth reached to a fraction of an inch', () => {
   // The zone's own design (Plan screen); fractions of an inch as crews measure them.
   it('a 6 1/16 in design reached exactly by two lifts passes instead of being called short by rounding', () => {
