@@ -2,6 +2,7 @@
 // edge it carries.
 import { ceilCount, requireNonNegativeNumber, requireNumberBetween, requirePositiveNumber } from './planning-guards'
 import { BASE_EXTENSION_RULES, type TradeBasis } from './trade-data'
+import { EXTENSION_FAIL_FRACTION } from './trade-data-takeoff'
 
 export interface BaseLiftsInput {
   /** Compacted base depth the design calls for, in inches. */
@@ -126,6 +127,7 @@ export function baseExtensionCheck(input: BaseExtensionInput): BaseExtensionChec
 }
 
 function grade(extensionIn: number, requiredIn: number, rule: string, source: string, basis: TradeBasis): BaseExtensionCheck {
-  const status = extensionIn >= requiredIn ? 'pass' : extensionIn >= requiredIn / 2 ? 'warn' : 'fail'
-  return { status, applies: true, requiredIn, rule, source, basis }
+  const failBelowIn = requiredIn * EXTENSION_FAIL_FRACTION.value
+  const status = extensionIn >= requiredIn ? 'pass' : extensionIn >= failBelowIn ? 'warn' : 'fail'
+  return { status, applies: true, requiredIn, rule, source: `${source}; warn and fail: ${EXTENSION_FAIL_FRACTION.source}`, basis }
 }

@@ -54,7 +54,7 @@ describe('loose lift thickness against the compactor class', () => {
 })
 
 describe('compacted depth against the zone design', () => {
-  // The design depth is the zone's own (ICPI's 4 in minimum for walks and patios, published,
+  // The design depth is the zone's own (ICPI's 4 in minimum for walks and patios, common practice,
   // is typical; this zone asks 6 in). Over-depth tolerance 1/2 in: common practice, Tamp's threshold.
   it('passes when the lifts reach the design exactly: 3 in before + 3 in = 6 in', () => {
     expect(check('design_depth', { compactedBeforeIn: 3 }).status).toBe('pass')
@@ -87,16 +87,16 @@ describe('compacted depth against the zone design', () => {
 })
 
 describe('base extension past the edge', () => {
-  // ICPI (published): the base reaches past the edge restraint the greater of 6 in or the base thickness.
+  // ICPI (industry institute, common practice): past the edge restraint the greater of 6 in or the base thickness.
   it('a walk with 6 in of base passes at 6 in, warns at 5.9 in, fails under 3 in', () => {
     expect(check('base_extension').status).toBe('pass')
     expect(check('base_extension', { zone: { ...walk, baseExtensionIn: 5.9 } }).status).toBe('warn')
     expect(check('base_extension', { zone: { ...walk, baseExtensionIn: 3 } }).status).toBe('warn')
     expect(check('base_extension', { zone: { ...walk, baseExtensionIn: 2.9 } }).status).toBe('fail')
-    expect(check('base_extension').basis).toBe('published')
+    expect(check('base_extension').basis).toBe('common practice')
   })
 
-  // ICPI (published): a 10 in driveway base must reach 10 in past the edge, not 6 in.
+  // ICPI (common practice): a 10 in driveway base must reach 10 in past the edge, not 6 in.
   it('a 10 in driveway base needs 10 in past the edge: 9 in warns', () => {
     const driveway = { kind: 'driveway' as const, designBaseDepthIn: 10, baseExtensionIn: 9 }
     const result = check('base_extension', { zone: driveway })

@@ -70,12 +70,19 @@ describe('baseExtensionCheck', () => {
     expect(baseExtensionCheck({ kind: 'wall', extensionIn: 2 }).status).toBe('fail')
   })
 
-  // ICPI (published): the greater of 6 in or the base depth past the edge restraint.
-  it('a patio base reaching 6 in past the edge restraint passes and cites ICPI', () => {
+  // ICPI (industry institute, so common practice): the greater of 6 in or the base depth past the edge restraint.
+  it('a patio base reaching 6 in past the edge restraint passes and cites ICPI as common practice', () => {
     const check = baseExtensionCheck({ kind: 'patio', extensionIn: 6 })
     expect(check.status).toBe('pass')
     expect(check.source).toContain('ICPI')
-    expect(check.basis).toBe('published')
+    expect(check.basis).toBe('common practice')
+  })
+
+  // Tamp's own threshold (common practice): under half the rule fails, at half it only warns.
+  it('a walkway base at exactly half the 6 in rule (3 in) warns; a sixteenth less fails', () => {
+    expect(baseExtensionCheck({ kind: 'walkway', extensionIn: 3 }).status).toBe('warn')
+    expect(baseExtensionCheck({ kind: 'walkway', extensionIn: 2.9375 }).status).toBe('fail')
+    expect(baseExtensionCheck({ kind: 'walkway', extensionIn: 2.9375 }).source).toContain('Tamp\u2019s own threshold')
   })
 
   it('a driveway base 8 in deep must reach 8 in past the edge, so 6 in is short', () => {

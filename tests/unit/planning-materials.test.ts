@@ -9,7 +9,7 @@ import {
 } from '../../shared/utils/trade-data'
 
 describe('aggregateTakeoff', () => {
-  // ICPI: 4 in minimum base under a walkway (published).
+  // ICPI (industry institute, common practice): 4 in minimum base under a walkway.
   it('a 100 sq ft walk on 4 in of base orders 1.54 cu yd loose, 2.16 tons at 1.4 t/cu yd', () => {
     const takeoff = aggregateTakeoff({
       areaSqFt: 100,
@@ -28,7 +28,7 @@ describe('aggregateTakeoff', () => {
     expect(takeoff.bags).toBe(4)
   })
 
-  // ICPI: bedding sand 1 in nominal (published).
+  // ICPI (industry institute, common practice): bedding sand 1 in nominal.
   it('1 in of ICPI bedding sand under 324 sq ft is exactly 1 cu yd compacted', () => {
     const takeoff = aggregateTakeoff({ areaSqFt: 324, depthIn: BEDDING_SAND.valueIn, compactionFactor: 1, tonsPerCuYd: 1.35 })
     expect(takeoff.cubicYardsCompacted).toBeCloseTo(1, 12)
