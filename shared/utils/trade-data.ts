@@ -40,12 +40,25 @@ export const OUTDOOR_STEP_PROPORTION: TradeInches = {
   basis: 'from memory',
 }
 
-/** The band around 2R + T = 26 in that walks comfortably outdoors. */
-export const OUTDOOR_STEP_COMFORT = {
-  minIn: 25,
-  maxIn: 27,
-  source: 'Landscape practice: 2R + T within about 1 in of 26 in; no code sets this band',
-  basis: 'common practice',
+/**
+ * The stride band the step plan checks 2R + T against, and the only one it cites: Blondel's step
+ * formula, two risers and a tread make one comfortable stride. Both edges are comfortable.
+ */
+export const STRIDE_BAND = {
+  minIn: 24,
+  maxIn: 26,
+  source: 'Blondel’s step formula (F. Blondel, Cours d’architecture, 1675) as restated in stair-design references: 2R + T from 24 to 26 in (about 61–66 cm); the handbook’s outdoor 26 in sits at the top edge; recalled from memory',
+  basis: 'from memory',
+} as const satisfies TradeSourced & Record<string, unknown>
+
+/** IRC stair rules beyond riser and tread size: rails, guards, landings, tread uniformity. */
+export const IRC_STAIR_RULES = {
+  handrailMinRisers: 4,
+  guardAboveGradeIn: 30,
+  maxFlightRiseIn: 151,
+  maxTreadSpreadIn: 0.375,
+  source: 'International Residential Code (2018/2021 editions): R311.7.8 handrail on at least one side of a flight with 4 or more risers; R312.1.1 guards where the walking surface is more than 30 in above the floor or grade below within 36 in horizontally; R311.7.3 a flight rises at most 151 in between floor levels or landings; R311.7.5.2 the deepest tread at most 3/8 in deeper than the shallowest; recalled from memory, not read in the code book',
+  basis: 'from memory',
 } as const satisfies TradeSourced & Record<string, unknown>
 
 export type CompactorClassId =
