@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import * as tradeData from '../../shared/utils/trade-data'
+import * as liftingData from '../../shared/utils/trade-data-lifting'
 import * as takeoffData from '../../shared/utils/trade-data-takeoff'
 import {
   BASE_DEPTH_BY_USE,
@@ -22,7 +23,7 @@ function sourcedEntries(value: unknown, path: string): Array<{ path: string, ent
 }
 
 describe('trade data', () => {
-  const entries = [...sourcedEntries(tradeData, 'trade-data'), ...sourcedEntries(takeoffData, 'trade-data-takeoff')]
+  const entries = [...sourcedEntries(tradeData, 'trade-data'), ...sourcedEntries(takeoffData, 'trade-data-takeoff'), ...sourcedEntries(liftingData, 'trade-data-lifting')]
 
   it('covers the compactors, base depths, bedding, overlaps and step rules', () => {
     expect(entries.length).toBeGreaterThan(20)
