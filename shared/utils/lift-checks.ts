@@ -1,7 +1,7 @@
 // The checks a compacted lift of base must pass, written once: the phone runs them as the lift is
 // logged and the server runs them again for the foreman's review. Each check carries the rule it
 // applies (in words), where the rule comes from and how far to trust it (see trade-data.ts).
-import { baseExtensionCheck, type ExtensionZoneKind } from './planning-base'
+import { baseExtensionCheck, withinLooseLimit, type ExtensionZoneKind } from './planning-base'
 import { COMPACTOR_CLASSES, type TradeBasis, type TradeSourced } from './trade-data'
 
 export const liftCheckIds = ['loose_thickness', 'design_depth', 'base_extension', 'photo_before_cover'] as const
@@ -61,8 +61,34 @@ export function compactorClassOf(id: string) {
   return COMPACTOR_CLASSES.find(c => c.id === normalised)
 }
 
+const BAD_RECORD_SOURCE = 'The lift as recorded: a thickness must be a number above 0, and compaction never makes a lift thicker'
+
+/**
+ * Why a lift's record cannot be checked, or null when it can: a thickness that is not a number or
+ * not above 0, or a compacted thickness above the loose one (compaction only ever thins a lift).
+ * Such a record is reported as not checked, never passed, so a typing slip cannot hide a bad lift.
+ */
+export function badLiftRecord(lift: Pick<LiftCheckInput['lift'], 'looseIn' | 'compactedIn'>): string | null {
+  const { looseIn, compactedIn } = lift
+  if (typeof looseIn !== 'number' || !Number.isFinite(looseIn) || looseIn <= 0) return 'loose'
+  if (typeof compactedIn !== 'number' || !Number.isFinite(compactedIn) || compactedIn <= 0) return 'compacted'
+  if (compactedIn > looseIn + EPSILON) return 'compacted_over_loose'
+  return null
+}
+
+function badRecordCheck(id: LiftCheckId, values: Record<string, number | string>, why: string): LiftCheck {
+  const shown = Object.fromEntries(Object.entries(values).map(([key, value]) => [key, String(value)]))
+  return {
+    id, status: 'warn', code: 'bad_record', values: { ...shown, why },
+    rule: `Not checked: the record is not usable (${[...Object.entries(shown).map(([key, value]) => `${key} ${value}`), why.replace(/_/g, ' ')].join('; ')}). Fix the record, then it is checked.`,
+    source: BAD_RECORD_SOURCE, basis: null,
+  }
+}
+
 export function checkLooseThickness(lift: LiftCheckInput['lift']): LiftCheck {
-  const machine = compactorClassOf(lift.compactorClass)
+  const bad = badLiftRecord(lift)
+  if (bad) return badRecordCheck('loose_thickness', { looseIn: lift.looseIn, compactedIn: lift.compactedIn }, bad)
+  const machine = compactorClassOf(String(lift.compactorClass ?? ''))
   if (!machine) {
     return {
       id: 'loose_thickness', status: 'warn', code: 'unknown_class', values: { looseIn: lift.looseIn, compactorClass: lift.compactorClass },
@@ -71,7 +97,7 @@ export function checkLooseThickness(lift: LiftCheckInput['lift']): LiftCheck {
     }
   }
   const values = { looseIn: lift.looseIn, maxIn: machine.maxLooseLiftIn, compactorClass: machine.id }
-  const within = lift.looseIn <= machine.maxLooseLiftIn + EPSILON
+  const within = withinLooseLimit(lift.looseIn, machine.maxLooseLiftIn)
   return {
     id: 'loose_thickness', status: within ? 'pass' : 'fail', code: within ? 'within' : 'too_thick', values,
     rule: within
@@ -82,8 +108,14 @@ export function checkLooseThickness(lift: LiftCheckInput['lift']): LiftCheck {
 }
 
 export function checkDesignDepth(input: LiftCheckInput): LiftCheck {
+  const bad = badLiftRecord(input.lift)
+    ?? (typeof input.compactedBeforeIn !== 'number' || !Number.isFinite(input.compactedBeforeIn) || input.compactedBeforeIn < 0 ? 'compacted_before' : null)
+  if (bad) return badRecordCheck('design_depth', { compactedIn: input.lift.compactedIn, compactedBeforeIn: input.compactedBeforeIn }, bad)
   const design = input.zone?.designBaseDepthIn
-  const reachedIn = round2(input.compactedBeforeIn + input.lift.compactedIn)
+  if (typeof design === 'number' && !Number.isFinite(design)) return badRecordCheck('design_depth', { designIn: design }, 'design_depth')
+  // Compared unrounded (a 6 1/16 in design reached exactly is on depth); rounded only to be shown.
+  const placedIn = input.compactedBeforeIn + input.lift.compactedIn
+  const reachedIn = round2(placedIn)
   if (design === null || design === undefined || design <= 0) {
     return {
       id: 'design_depth', status: 'warn', code: 'no_design', values: { reachedIn },
@@ -92,15 +124,15 @@ export function checkDesignDepth(input: LiftCheckInput): LiftCheck {
     }
   }
   const over = DESIGN_DEPTH_OVER_TOLERANCE
-  const values = { reachedIn, designIn: design, toleranceIn: over.valueIn, diffIn: round2(Math.abs(reachedIn - design)) }
-  if (reachedIn > design + over.valueIn + EPSILON) {
+  const values = { reachedIn, designIn: design, toleranceIn: over.valueIn, diffIn: round2(Math.abs(placedIn - design)) }
+  if (placedIn > design + over.valueIn + EPSILON) {
     return {
       id: 'design_depth', status: 'warn', code: 'over', values,
       rule: `Base reaches ${reachedIn} in, ${values.diffIn} in over the ${design} in design (more than ${over.valueIn} in over): check the finished grade still works.`,
       source: `${DESIGN_SOURCE}; ${over.source}`, basis: over.basis,
     }
   }
-  if (reachedIn + EPSILON >= design) {
+  if (placedIn + EPSILON >= design) {
     return {
       id: 'design_depth', status: 'pass', code: 'reached', values,
       rule: `Base reaches ${reachedIn} in against the ${design} in design (up to ${over.valueIn} in over is on depth).`,
@@ -125,7 +157,10 @@ export function checkBaseExtension(zone: LiftCheckInput['zone']): LiftCheck {
       source: 'none', basis: null,
     }
   }
-  const depth = zone.designBaseDepthIn !== null && zone.designBaseDepthIn > 0 ? zone.designBaseDepthIn : undefined
+  if (typeof zone.baseExtensionIn !== 'number' || !Number.isFinite(zone.baseExtensionIn) || zone.baseExtensionIn < 0) {
+    return badRecordCheck('base_extension', { extensionIn: zone.baseExtensionIn }, 'extension')
+  }
+  const depth = typeof zone.designBaseDepthIn === 'number' && Number.isFinite(zone.designBaseDepthIn) && zone.designBaseDepthIn > 0 ? zone.designBaseDepthIn : undefined
   const check = baseExtensionCheck({ kind: zone.kind, extensionIn: zone.baseExtensionIn, baseDepthIn: depth })
   return {
     id: 'base_extension', status: check.status,
@@ -144,9 +179,25 @@ export function checkPhotoBeforeCover(hasPhoto: boolean): LiftCheck {
   }
 }
 
-/** Every check of one lift, in a fixed order: thickness, depth, extension, photo. */
+/**
+ * Every check of one lift, in a fixed order: thickness, depth, extension, photo. A check never
+ * throws: a record it cannot read (a zone kind from a newer phone, say) is reported as not checked.
+ */
 export function checkLift(input: LiftCheckInput): LiftCheck[] {
-  return [checkLooseThickness(input.lift), checkDesignDepth(input), checkBaseExtension(input.zone), checkPhotoBeforeCover(input.hasPhoto)]
+  const guarded = (id: LiftCheckId, run: () => LiftCheck) => {
+    try {
+      return run()
+    }
+    catch (error) {
+      return badRecordCheck(id, {}, error instanceof Error ? error.message : String(error))
+    }
+  }
+  return [
+    guarded('loose_thickness', () => checkLooseThickness(input.lift)),
+    guarded('design_depth', () => checkDesignDepth(input)),
+    guarded('base_extension', () => checkBaseExtension(input.zone)),
+    guarded('photo_before_cover', () => checkPhotoBeforeCover(input.hasPhoto)),
+  ]
 }
 
 /** The worst status among checks: what a list shows for a lift at a glance. */

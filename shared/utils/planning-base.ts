@@ -1,29 +1,59 @@
 // The compacted base: how many lifts to place it in, and whether it reaches far enough past the
 // edge it carries.
-import { ceilCount, requireNonNegativeNumber, requirePositiveNumber } from './planning-guards'
+import { ceilCount, requireNonNegativeNumber, requireNumberBetween, requirePositiveNumber } from './planning-guards'
 import { BASE_EXTENSION_RULES, type TradeBasis } from './trade-data'
+import { EXTENSION_FAIL_FRACTION } from './trade-data-takeoff'
 
 export interface BaseLiftsInput {
   /** Compacted base depth the design calls for, in inches. */
   designDepthIn: number
-  /** Thickest lift the compactor on site handles (see COMPACTOR_CLASSES), in inches. */
-  maxLiftIn: number
+  /** Thickest loose lift the compactor on site compacts through (see COMPACTOR_CLASSES), in inches. */
+  maxLooseLiftIn: number
+  /** Loose thickness per compacted thickness, 1 to 2 (e.g. 1.25, see AGGREGATE_TYPICALS). */
+  compactionFactor: number
 }
 
 export interface BaseLifts {
   lifts: number
-  liftIn: number
+  /** Each lift once compacted, in inches: the lifts add up to the design depth. */
+  compactedEachIn: number
+  /** Each lift as spread before compaction (compacted × factor), in inches: what the machine's limit is about. */
+  looseEachIn: number
+}
+
+// Sums and products of inches in binary floating point (3 × 1.25 ...) must not fail a lift by a
+// hair; a billionth of an inch is far below anything a crew can spread or measure. The lift check
+// uses the same allowance, so a planned lift never fails its own check.
+const LOOSE_LIFT_SLACK_IN = 1e-9
+
+// A depth typed in millimetres into an inch field gives hundreds of lifts; refuse rather than plan it.
+const MAX_LIFTS = 100
+
+/** True when a loose lift is no thicker than the machine compacts through. */
+export function withinLooseLimit(looseIn: number, maxLooseLiftIn: number): boolean {
+  return looseIn <= maxLooseLiftIn + LOOSE_LIFT_SLACK_IN
 }
 
 /**
- * The fewest equal lifts, none thicker than the maximum: 8 in of base with a plate good for
- * 4 in is two lifts of 4 in; 9 in is three of 3 in, not two of 4 in and a skim of 1 in.
+ * The fewest equal lifts whose loose thickness stays within the machine's loose limit. The
+ * machine's limit is loose, as spread; the design is compacted: 6 in compacted at a 1.25 factor is
+ * 7.5 in loose, so a medium plate good for 6 in loose needs two lifts of 3 in compacted (3.75 in
+ * loose), not one lift of 6 in. 9 in compacted at a factor of 1 with a 4 in plate is three equal
+ * lifts of 3 in, not 4 + 4 + a 1 in skim.
  */
 export function baseLifts(input: BaseLiftsInput): BaseLifts {
   const designDepthIn = requirePositiveNumber('designDepthIn', input.designDepthIn)
-  const maxLiftIn = requirePositiveNumber('maxLiftIn', input.maxLiftIn)
-  const lifts = Math.max(1, ceilCount(designDepthIn / maxLiftIn))
-  return { lifts, liftIn: designDepthIn / lifts }
+  const maxLooseLiftIn = requirePositiveNumber('maxLooseLiftIn', input.maxLooseLiftIn)
+  const compactionFactor = requireNumberBetween('compactionFactor', input.compactionFactor, 1, 2)
+  const looseIn = designDepthIn * compactionFactor
+  let lifts = Math.max(1, ceilCount(looseIn / maxLooseLiftIn))
+  // The count comes from a rounded quotient; the check below is the one the logged lift must pass.
+  while (!withinLooseLimit((designDepthIn / lifts) * compactionFactor, maxLooseLiftIn)) lifts += 1
+  if (lifts > MAX_LIFTS) {
+    throw new RangeError(`${lifts} lifts is more than any base is placed in: check that the depth and the machine's limit are both in inches`)
+  }
+  const compactedEachIn = designDepthIn / lifts
+  return { lifts, compactedEachIn, looseEachIn: compactedEachIn * compactionFactor }
 }
 
 export type ExtensionZoneKind = 'wall' | 'walkway' | 'patio' | 'driveway' | 'steps' | 'drainage' | 'other'
@@ -97,6 +127,7 @@ export function baseExtensionCheck(input: BaseExtensionInput): BaseExtensionChec
 }
 
 function grade(extensionIn: number, requiredIn: number, rule: string, source: string, basis: TradeBasis): BaseExtensionCheck {
-  const status = extensionIn >= requiredIn ? 'pass' : extensionIn >= requiredIn / 2 ? 'warn' : 'fail'
-  return { status, applies: true, requiredIn, rule, source, basis }
+  const failBelowIn = requiredIn * EXTENSION_FAIL_FRACTION.value
+  const status = extensionIn >= requiredIn ? 'pass' : extensionIn >= failBelowIn ? 'warn' : 'fail'
+  return { status, applies: true, requiredIn, rule, source: `${source}; warn and fail: ${EXTENSION_FAIL_FRACTION.source}`, basis }
 }

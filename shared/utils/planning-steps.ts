@@ -1,13 +1,7 @@
 // Step layout for a flight between two levels: how many risers, how tall each, how long the run.
 import { requireFiniteNumber, requirePositiveNumber } from './planning-guards'
 import { lengthToIn } from './planning-units'
-import {
-  IRC_STAIR_LIMITS,
-  MIN_RISER,
-  OUTDOOR_STEP_COMFORT,
-  OUTDOOR_STEP_PROPORTION,
-  type TradeBasis,
-} from './trade-data'
+import { IRC_STAIR_LIMITS, IRC_STAIR_RULES, MIN_RISER, STRIDE_BAND, type TradeBasis } from './trade-data'
 
 export type StepWarningCode =
   | 'riser-above-max'
@@ -43,6 +37,15 @@ export interface StepPlan {
   totalRunIn: number
   twoRPlusTIn: number
   warnings: StepWarning[]
+  /** A handrail on at least one side: 4 or more risers (IRC R311.7.8). */
+  handrailRequired: boolean
+  /** Guards on open sides: the top is more than 30 in above the grade below (IRC R312.1.1). */
+  guardRequired: boolean
+  /** A landing part way: the flight rises more than 151 in (IRC R311.7.3). */
+  landingRequired: boolean
+  /** Where the three rules above come from. */
+  rulesSource: string
+  rulesBasis: TradeBasis
 }
 
 // totalRise / n can land a hair above the maximum in floating point when the rise is an exact
@@ -84,6 +87,12 @@ export function planSteps(input: StepPlanInput): StepPlan {
     totalRunIn,
     twoRPlusTIn,
     warnings: stepWarnings({ risers, riserIn, treadIn, twoRPlusTIn, maxRiserIn, minTreadIn }),
+    handrailRequired: risers >= IRC_STAIR_RULES.handrailMinRisers,
+    // The flight is taken to start at grade, so its top stands the total rise above it.
+    guardRequired: totalRiseIn > IRC_STAIR_RULES.guardAboveGradeIn,
+    landingRequired: totalRiseIn > IRC_STAIR_RULES.maxFlightRiseIn,
+    rulesSource: IRC_STAIR_RULES.source,
+    rulesBasis: IRC_STAIR_RULES.basis,
   }
 }
 
@@ -138,13 +147,13 @@ function stepWarnings(f: WarningFacts): StepWarning[] {
       basis: f.minTreadIn === undefined ? IRC_STAIR_LIMITS.basis : 'common practice',
     })
   }
-  if (f.twoRPlusTIn < OUTDOOR_STEP_COMFORT.minIn || f.twoRPlusTIn > OUTDOOR_STEP_COMFORT.maxIn) {
-    const hint = f.twoRPlusTIn < OUTDOOR_STEP_COMFORT.minIn ? 'short strides: deepen the tread' : 'long strides: shorten the tread'
+  if (f.twoRPlusTIn < STRIDE_BAND.minIn - RISER_SLACK_IN || f.twoRPlusTIn > STRIDE_BAND.maxIn + RISER_SLACK_IN) {
+    const hint = f.twoRPlusTIn < STRIDE_BAND.minIn ? 'short strides: deepen the tread' : 'long strides: shorten the tread'
     warnings.push({
       code: 'step-proportion',
-      message: `2R + T is ${inches(f.twoRPlusTIn)}, outside the comfortable ${OUTDOOR_STEP_COMFORT.minIn}–${OUTDOOR_STEP_COMFORT.maxIn} in for outdoor steps (${hint}).`,
-      source: `${OUTDOOR_STEP_PROPORTION.source}; ${OUTDOOR_STEP_COMFORT.source}`,
-      basis: OUTDOOR_STEP_PROPORTION.basis,
+      message: `2R + T is ${inches(f.twoRPlusTIn)}, outside the comfortable ${STRIDE_BAND.minIn}–${STRIDE_BAND.maxIn} in (${hint}).`,
+      source: STRIDE_BAND.source,
+      basis: STRIDE_BAND.basis,
     })
   }
   if (f.risers === 1) {
@@ -179,4 +188,31 @@ export function riseFromReadings(bottomReading: number, topReading: number, unit
     throw new RangeError(`unit must be one of ${READING_UNITS.join(', ')}, got ${String(unit)}`)
   }
   return Math.abs(lengthToIn(topReading, unit) - lengthToIn(bottomReading, unit))
+}
+
+export interface StepUniformity {
+  /** Largest minus smallest, in inches. */
+  spreadIn: number
+  largestIn: number
+  smallestIn: number
+  /** Within the IRC 3/8 in between the largest and the smallest riser (or tread) of a flight. */
+  withinLimit: boolean
+  limitIn: number
+}
+
+/**
+ * The as-built check of a flight: the crew measures each built riser (or each tread) and the
+ * largest may exceed the smallest by at most 3/8 in (IRC R311.7.5.1 for risers, R311.7.5.2 for
+ * treads). Exactly 3/8 in is within; a sixteenth more is not.
+ */
+export function stepUniformity(valuesIn: number[]): StepUniformity {
+  if (!Array.isArray(valuesIn) || valuesIn.length < 2) {
+    throw new RangeError(`valuesIn must list at least 2 measured steps, got ${Array.isArray(valuesIn) ? valuesIn.length : String(valuesIn)}`)
+  }
+  valuesIn.forEach((value, index) => requirePositiveNumber(`valuesIn[${index}]`, value))
+  const largestIn = Math.max(...valuesIn)
+  const smallestIn = Math.min(...valuesIn)
+  const spreadIn = largestIn - smallestIn
+  const limitIn = IRC_STAIR_LIMITS.maxRiserSpreadIn
+  return { spreadIn, largestIn, smallestIn, withinLimit: spreadIn <= limitIn + RISER_SLACK_IN, limitIn }
 }

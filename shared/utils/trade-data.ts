@@ -1,8 +1,9 @@
 // Trade figures the calculators check against, each with where it comes from. `basis` says how
-// far to trust it: 'published' means a code, regulation or institute document says it (the source
-// names which); 'common practice' means crews and manufacturers' installation guides do it, with
-// no single authority; 'from memory' means the figure was recalled, not checked against the
-// document, while this file was written: confirm it before relying on it.
+// far to trust it: 'published' means a code, regulation or public-agency document says it and the
+// figure was read there (the source names which); 'common practice' means crews, industry
+// associations and makers' installation guides do it, with no single authority (makers' and trade
+// associations' literature is common practice at best); 'from memory' means the figure was
+// recalled, not read in the document, while this file was written: confirm it before relying on it.
 // Local codes, the project's specifications and a licensed engineer override every value here.
 
 export type TradeBasis = 'published' | 'common practice' | 'from memory'
@@ -39,12 +40,25 @@ export const OUTDOOR_STEP_PROPORTION: TradeInches = {
   basis: 'from memory',
 }
 
-/** The band around 2R + T = 26 in that walks comfortably outdoors. */
-export const OUTDOOR_STEP_COMFORT = {
-  minIn: 25,
-  maxIn: 27,
-  source: 'Landscape practice: 2R + T within about 1 in of 26 in; no code sets this band',
-  basis: 'common practice',
+/**
+ * The stride band the step plan checks 2R + T against, and the only one it cites: Blondel's step
+ * formula, two risers and a tread make one comfortable stride. Both edges are comfortable.
+ */
+export const STRIDE_BAND = {
+  minIn: 24,
+  maxIn: 26,
+  source: 'Blondel’s step formula (F. Blondel, Cours d’architecture, 1675) as restated in stair-design references: 2R + T from 24 to 26 in (about 61–66 cm); the handbook’s outdoor 26 in sits at the top edge; recalled from memory',
+  basis: 'from memory',
+} as const satisfies TradeSourced & Record<string, unknown>
+
+/** IRC stair rules beyond riser and tread size: rails, guards, landings, tread uniformity. */
+export const IRC_STAIR_RULES = {
+  handrailMinRisers: 4,
+  guardAboveGradeIn: 30,
+  maxFlightRiseIn: 151,
+  maxTreadSpreadIn: 0.375,
+  source: 'International Residential Code (2018/2021 editions): R311.7.8 handrail on at least one side of a flight with 4 or more risers; R312.1.1 guards where the walking surface is more than 30 in above the floor or grade below within 36 in horizontally; R311.7.3 a flight rises at most 151 in between floor levels or landings; R311.7.5.2 the deepest tread at most 3/8 in deeper than the shallowest; recalled from memory, not read in the code book',
+  basis: 'from memory',
 } as const satisfies TradeSourced & Record<string, unknown>
 
 export type CompactorClassId =
@@ -80,14 +94,15 @@ export const COMPACTOR_CLASSES: readonly CompactorClass[] = [
 
 export type BaseUse = 'walkway' | 'patio' | 'driveway' | 'wallLevelingPad'
 
+// ICPI is the paver makers' industry institute, not a code body: its guides are common practice.
 const ICPI_TOLERANCES =
-  'ICPI, Construction Tolerances and Recommendations for Interlocking Concrete Pavements: minimum base thickness'
+  'ICPI (industry institute), Construction Tolerances and Recommendations for Interlocking Concrete Pavements: minimum base thickness'
 
 /** Compacted base depth by use, on well-drained soil in a mild climate. */
 export const BASE_DEPTH_BY_USE: Readonly<Record<BaseUse, TradeInches>> = {
-  walkway: { valueIn: 4, source: `${ICPI_TOLERANCES}, sidewalks, patios and pedestrian areas 4 in (100 mm)`, basis: 'published' },
-  patio: { valueIn: 4, source: `${ICPI_TOLERANCES}, sidewalks, patios and pedestrian areas 4 in (100 mm)`, basis: 'published' },
-  driveway: { valueIn: 6, source: `${ICPI_TOLERANCES}, residential driveways 6 in (150 mm)`, basis: 'published' },
+  walkway: { valueIn: 4, source: `${ICPI_TOLERANCES}, sidewalks, patios and pedestrian areas 4 in (100 mm)`, basis: 'common practice' },
+  patio: { valueIn: 4, source: `${ICPI_TOLERANCES}, sidewalks, patios and pedestrian areas 4 in (100 mm)`, basis: 'common practice' },
+  driveway: { valueIn: 6, source: `${ICPI_TOLERANCES}, residential driveways 6 in (150 mm)`, basis: 'common practice' },
   wallLevelingPad: { valueIn: 6, source: 'Segmental retaining wall installation guides (NCMA practice, block makers): compacted granular leveling pad at least 6 in thick', basis: 'common practice' },
 }
 
@@ -101,8 +116,8 @@ export const BASE_DEPTH_FROST_OR_CLAY: Readonly<Record<'walkway' | 'patio' | 'dr
 /** Sand bedding under pavers, after the pavers are compacted into it. */
 export const BEDDING_SAND: TradeInches = {
   valueIn: 1,
-  source: 'ICPI, Construction Tolerances and Recommendations for Interlocking Concrete Pavements: bedding layer 1 in (25 mm) nominal',
-  basis: 'published',
+  source: 'ICPI (industry institute), Construction Tolerances and Recommendations for Interlocking Concrete Pavements: bedding layer 1 in (25 mm) nominal',
+  basis: 'common practice',
 }
 
 /** Chip-stone bedding, the common alternative to sand. */
@@ -116,7 +131,7 @@ export const BEDDING_CHIP_STONE: TradeInches & { material: string } = {
 /** Base over a drain line that runs under pavers. */
 export const DRAIN_COVER_UNDER_PAVERS: TradeInches = {
   valueIn: 4,
-  source: 'Paver installers: at least about 4 in of compacted base between a drain pipe and the bedding',
+  source: 'Paver installers: at least about 4 in of compacted base between a drain pipe and the bedding, so the pipe does not print through or get crushed; no code sets it',
   basis: 'common practice',
 }
 
@@ -136,8 +151,8 @@ export const BASE_EXTENSION_RULES = {
   },
   pavement: {
     valueIn: 6,
-    source: 'ICPI, Construction Tolerances and Recommendations: over-excavation the greater of 6 in (150 mm) or the base thickness; ICPI Tech Spec 3: base extends past the edge restraint at least its own thickness',
-    basis: 'published',
+    source: 'ICPI (industry institute), Construction Tolerances and Recommendations: over-excavation the greater of 6 in (150 mm) or the base thickness; ICPI Tech Spec 3: base extends past the edge restraint at least its own thickness',
+    basis: 'common practice',
   },
   steps: {
     valueIn: 6,
@@ -153,15 +168,17 @@ export interface GeotextileOverlap extends TradeSourced {
   sewn: 'no' | 'or sewn' | 'sewn'
 }
 
+// FHWA is a public agency, but the figures were taken from makers' reproductions of its table,
+// not read in the manual: from memory until someone checks the page.
 const FHWA_OVERLAP =
-  'FHWA NHI-07-092, Geosynthetic Design & Construction Guidelines (Holtz, Christopher, Berg, 2008), overlap for separation and stabilization; values as reproduced in manufacturer literature, the manual page itself not checked'
+  'FHWA NHI-07-092, Geosynthetic Design & Construction Guidelines (Holtz, Christopher, Berg, 2008), overlap for separation and stabilization; values as reproduced in manufacturer literature, the manual page itself not checked, so recalled from memory'
 
 /** Geotextile overlap between strips by subgrade strength (CBR). */
 export const GEOTEXTILE_OVERLAPS: readonly GeotextileOverlap[] = [
-  { subgrade: 'CBR above 3 (firm)', minOverlapIn: 12, maxOverlapIn: 18, sewn: 'no', source: FHWA_OVERLAP, basis: 'published' },
-  { subgrade: 'CBR 1 to 3', minOverlapIn: 24, maxOverlapIn: 39, sewn: 'no', source: FHWA_OVERLAP, basis: 'published' },
-  { subgrade: 'CBR 0.5 to 1', minOverlapIn: 39, maxOverlapIn: null, sewn: 'or sewn', source: FHWA_OVERLAP, basis: 'published' },
-  { subgrade: 'CBR below 0.5 (very soft)', minOverlapIn: null, maxOverlapIn: null, sewn: 'sewn', source: FHWA_OVERLAP, basis: 'published' },
+  { subgrade: 'CBR above 3 (firm)', minOverlapIn: 12, maxOverlapIn: 18, sewn: 'no', source: FHWA_OVERLAP, basis: 'from memory' },
+  { subgrade: 'CBR 1 to 3', minOverlapIn: 24, maxOverlapIn: 39, sewn: 'no', source: FHWA_OVERLAP, basis: 'from memory' },
+  { subgrade: 'CBR 0.5 to 1', minOverlapIn: 39, maxOverlapIn: null, sewn: 'or sewn', source: FHWA_OVERLAP, basis: 'from memory' },
+  { subgrade: 'CBR below 0.5 (very soft)', minOverlapIn: null, maxOverlapIn: null, sewn: 'sewn', source: FHWA_OVERLAP, basis: 'from memory' },
 ]
 
 /** Starting figures for a takeoff when the supplier's ticket is not at hand. */

@@ -54,7 +54,7 @@ describe('loose lift thickness against the compactor class', () => {
 })
 
 describe('compacted depth against the zone design', () => {
-  // The design depth is the zone's own (ICPI's 4 in minimum for walks and patios, published,
+  // The design depth is the zone's own (ICPI's 4 in minimum for walks and patios, common practice,
   // is typical; this zone asks 6 in). Over-depth tolerance 1/2 in: common practice, Tamp's threshold.
   it('passes when the lifts reach the design exactly: 3 in before + 3 in = 6 in', () => {
     expect(check('design_depth', { compactedBeforeIn: 3 }).status).toBe('pass')
@@ -87,16 +87,16 @@ describe('compacted depth against the zone design', () => {
 })
 
 describe('base extension past the edge', () => {
-  // ICPI (published): the base reaches past the edge restraint the greater of 6 in or the base thickness.
+  // ICPI (industry institute, common practice): past the edge restraint the greater of 6 in or the base thickness.
   it('a walk with 6 in of base passes at 6 in, warns at 5.9 in, fails under 3 in', () => {
     expect(check('base_extension').status).toBe('pass')
     expect(check('base_extension', { zone: { ...walk, baseExtensionIn: 5.9 } }).status).toBe('warn')
     expect(check('base_extension', { zone: { ...walk, baseExtensionIn: 3 } }).status).toBe('warn')
     expect(check('base_extension', { zone: { ...walk, baseExtensionIn: 2.9 } }).status).toBe('fail')
-    expect(check('base_extension').basis).toBe('published')
+    expect(check('base_extension').basis).toBe('common practice')
   })
 
-  // ICPI (published): a 10 in driveway base must reach 10 in past the edge, not 6 in.
+  // ICPI (common practice): a 10 in driveway base must reach 10 in past the edge, not 6 in.
   it('a 10 in driveway base needs 10 in past the edge: 9 in warns', () => {
     const driveway = { kind: 'driveway' as const, designBaseDepthIn: 10, baseExtensionIn: 9 }
     const result = check('base_extension', { zone: driveway })
@@ -134,5 +134,56 @@ describe('all checks of a lift', () => {
     for (const c of checks) expect(c.rule.length && c.source.length).toBeGreaterThan(0)
     expect(worstStatus(checks)).toBe('fail')
     expect(worstStatus(checkLift(input({ compactedBeforeIn: 3 })))).toBe('pass')
+  })
+})
+
+describe('a lift record that cannot be checked', () => {
+  // Common practice: compaction only ever thins a lift, and a thickness is a positive number.
+  it.each([
+    ['a NaN loose thickness', { looseIn: Number.NaN }],
+    ['a negative loose thickness', { looseIn: -4 }],
+    ['a zero loose thickness', { looseIn: 0 }],
+    ['a compacted thickness over the loose one', { looseIn: 3, compactedIn: 3.5 }],
+    ['a NaN compacted thickness', { compactedIn: Number.NaN }],
+  ])('%s is "not checked, bad record", never a pass of the thickness or the depth', (_label, lift) => {
+    for (const id of ['loose_thickness', 'design_depth']) {
+      const result = check(id, { lift, compactedBeforeIn: 3 })
+      expect(result.status, id).toBe('warn')
+      expect(result.code, id).toBe('bad_record')
+      expect(result.basis, id).toBeNull()
+    }
+  })
+
+  it('a lift compacted to exactly its loose thickness is still checked (a factor of 1 is allowed)', () => {
+    expect(check('loose_thickness', { lift: { looseIn: 4, compactedIn: 4 } }).code).toBe('within')
+  })
+
+  it('a stored negative or NaN base extension is "not checked, bad record", not a throw', () => {
+    for (const baseExtensionIn of [-1, Number.NaN]) {
+      const result = check('base_extension', { zone: { ...walk, baseExtensionIn } })
+      expect(result).toMatchObject({ status: 'warn', code: 'bad_record', basis: null })
+    }
+  })
+
+  it('a zone kind this phone does not know gives a "not checked" result instead of stopping the list', () => {
+    const checks = checkLift(input({ zone: { ...walk, kind: 'pool' as 'other' } }))
+    expect(checks.map(c => c.id)).toEqual(['loose_thickness', 'design_depth', 'base_extension', 'photo_before_cover'])
+    expect(checks[2]).toMatchObject({ status: 'warn', code: 'bad_record' })
+  })
+
+  it('a negative depth placed before is "not checked", not a pass of the depth', () => {
+    expect(check('design_depth', { compactedBeforeIn: -3 }).code).toBe('bad_record')
+  })
+
+  it('a bad record makes the whole lift at best "check", never "pass"', () => {
+    expect(worstStatus(checkLift(input({ compactedBeforeIn: 3, lift: { looseIn: -3 } })))).not.toBe('pass')
+  })
+})
+
+describe('depth reached to a fraction of an inch', () => {
+  // The zone's own design (Plan screen); fractions of an inch as crews measure them.
+  it('a 6 1/16 in design reached exactly by two lifts passes instead of being called short by rounding', () => {
+    const zone = { ...walk, designBaseDepthIn: 6.0625 }
+    expect(check('design_depth', { zone, compactedBeforeIn: 3.03125, lift: { looseIn: 3.8, compactedIn: 3.03125 }, lastInZone: true }).status).toBe('pass')
   })
 })

@@ -9,7 +9,7 @@ import {
 } from '../../shared/utils/trade-data'
 
 describe('aggregateTakeoff', () => {
-  // ICPI: 4 in minimum base under a walkway (published).
+  // ICPI (industry institute, common practice): 4 in minimum base under a walkway.
   it('a 100 sq ft walk on 4 in of base orders 1.54 cu yd loose, 2.16 tons at 1.4 t/cu yd', () => {
     const takeoff = aggregateTakeoff({
       areaSqFt: 100,
@@ -28,7 +28,7 @@ describe('aggregateTakeoff', () => {
     expect(takeoff.bags).toBe(4)
   })
 
-  // ICPI: bedding sand 1 in nominal (published).
+  // ICPI (industry institute, common practice): bedding sand 1 in nominal.
   it('1 in of ICPI bedding sand under 324 sq ft is exactly 1 cu yd compacted', () => {
     const takeoff = aggregateTakeoff({ areaSqFt: 324, depthIn: BEDDING_SAND.valueIn, compactionFactor: 1, tonsPerCuYd: 1.35 })
     expect(takeoff.cubicYardsCompacted).toBeCloseTo(1, 12)
@@ -104,6 +104,8 @@ describe('geotextileArea', () => {
 })
 
 describe('pipeFall', () => {
+  // Geometry: fall = run × slope (1% is 1 ft per 100 ft); 1% is the landscape-drainage minimum
+  // (DRAIN_MIN_SLOPE, common practice), about 1/8 in per foot.
   it('a 100 ft drain at 1% falls 12 in', () => {
     expect(pipeFall({ lengthFt: 100, slopePercent: 1 })).toEqual({ fallIn: 12, fallFt: 1, inPerFt: 0.12 })
   })
@@ -121,6 +123,8 @@ describe('pipeFall', () => {
 })
 
 describe('paverCount', () => {
+  // Geometry: count = area / face area of one paver, rounded up; waste percentages are the
+  // estimator's (PAVER_WASTE, from memory).
   it('100 sq ft of 6 × 12 in pavers is 200 pavers, 220 with 10% waste (not 221)', () => {
     expect(paverCount({ areaSqFt: 100, unitSqFt: 0.5, wastePercent: 10 })).toEqual({ units: 200, unitsWithWaste: 220 })
   })
@@ -141,7 +145,9 @@ describe('paverCount', () => {
 })
 
 describe('wallUnits', () => {
-  // The height includes the buried course: do not add another.
+  // Geometry: courses = height / block height and block per course = length / block length, each
+  // rounded up. The height includes the buried course (SRW installation guides, common practice):
+  // do not add another.
   it('a 20 ft wall 30 in tall (buried course included) of 16 × 6 in block is 5 courses, 75 block, 20 caps', () => {
     const units = wallUnits({ lengthFt: 20, heightIn: 30, unitLengthIn: 16, unitHeightIn: 6, capLengthIn: 12 })
     expect(units).toEqual({ courses: 5, unitsPerCourse: 15, units: 75, caps: 20 })

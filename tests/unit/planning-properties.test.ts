@@ -1,4 +1,6 @@
 import fc from 'fast-check'
+import { checkDesignDepth, checkLooseThickness } from '../../shared/utils/lift-checks'
+import { COMPACTOR_CLASSES } from '../../shared/utils/trade-data'
 import { describe, expect, it } from 'vitest'
 import {
   aggregateTakeoff,
@@ -63,12 +65,28 @@ describe('aggregateTakeoff properties', () => {
 })
 
 describe('baseLifts properties', () => {
-  it('the lifts add up to the design depth, none is too thick, and one lift fewer would be', () => {
-    fc.assert(fc.property(num(0.5, 36), num(1, 12), (designDepthIn, maxLiftIn) => {
-      const { lifts, liftIn } = baseLifts({ designDepthIn, maxLiftIn })
-      expect(lifts * liftIn).toBeCloseTo(designDepthIn, 9)
-      expect(liftIn).toBeLessThanOrEqual(maxLiftIn * (1 + 1e-9))
-      if (lifts > 1) expect(designDepthIn / (lifts - 1)).toBeGreaterThan(maxLiftIn)
+  it('the lifts add up to the design depth, none is too thick loose, and one lift fewer would be', () => {
+    fc.assert(fc.property(num(0.5, 36), num(1, 12), num(1, 2), (designDepthIn, maxLooseLiftIn, compactionFactor) => {
+      const { lifts, compactedEachIn, looseEachIn } = baseLifts({ designDepthIn, maxLooseLiftIn, compactionFactor })
+      expect(lifts * compactedEachIn).toBeCloseTo(designDepthIn, 9)
+      expect(looseEachIn).toBeCloseTo(compactedEachIn * compactionFactor, 12)
+      expect(looseEachIn).toBeLessThanOrEqual(maxLooseLiftIn + 1e-9)
+      if (lifts > 1) expect((designDepthIn * compactionFactor) / (lifts - 1)).toBeGreaterThan(maxLooseLiftIn)
+    }))
+  })
+
+  // The plan and the lift check must never disagree: a lift logged as planned passes its checks.
+  it('a lift logged exactly as planned passes the loose-thickness check, and the last one reaches the design depth', () => {
+    const machine = fc.constantFrom(...COMPACTOR_CLASSES)
+    fc.assert(fc.property(num(0.5, 36), machine, num(1, 2), (designDepthIn, compactor, compactionFactor) => {
+      const plan = baseLifts({ designDepthIn, maxLooseLiftIn: compactor.maxLooseLiftIn, compactionFactor })
+      const lift = { looseIn: plan.looseEachIn, compactedIn: plan.compactedEachIn, compactorClass: compactor.id }
+      expect(checkLooseThickness(lift).status).toBe('pass')
+      const last = checkDesignDepth({
+        lift, zone: { kind: 'patio', designBaseDepthIn: designDepthIn, baseExtensionIn: 6 },
+        compactedBeforeIn: plan.compactedEachIn * (plan.lifts - 1), hasPhoto: true, lastInZone: true,
+      })
+      expect(last.status).toBe('pass')
     }))
   })
 })

@@ -1,6 +1,7 @@
 import convert from 'convert-units'
 import { describe, expect, it } from 'vitest'
-import { planSteps, riseFromReadings } from '../../shared/utils/planning'
+import { planSteps, riseFromReadings, stepUniformity } from '../../shared/utils/planning'
+import { IRC_STAIR_RULES, STRIDE_BAND } from '../../shared/utils/trade-data'
 
 function codes(plan: ReturnType<typeof planSteps>): string[] {
   return plan.warnings.map(w => w.code)
@@ -81,22 +82,28 @@ describe('planSteps', () => {
     expect(five.warnings).toEqual([])
   })
 
-  // Common practice band 25–27 in around the handbook's 26 in.
-  it('a 7 in riser on a 16 in tread (2R + T = 30 in) is flagged as a long stride', () => {
+  // Blondel's step formula, 2R + T from 24 to 26 in (from memory): the one band the plan cites.
+  it('a 7 in riser on a 16 in tread (2R + T = 30 in) is flagged as a long stride, citing Blondel', () => {
     const plan = planSteps({ totalRiseIn: 42, targetRiserIn: 7, treadIn: 16 })
     const warning = plan.warnings.find(w => w.code === 'step-proportion')
     expect(warning?.message).toContain('30 in')
+    expect(warning?.source).toContain('Blondel')
+    expect(warning?.source).toBe(STRIDE_BAND.source)
     expect(warning?.basis).toBe('from memory')
   })
 
-  it('a 7 in riser on a 10 in tread (2R + T = 24 in) is flagged as a short stride', () => {
-    const plan = planSteps({ totalRiseIn: 42, targetRiserIn: 7, treadIn: 10 })
+  it('a 7 in riser on a 9 in tread (2R + T = 23 in) is flagged as a short stride', () => {
+    const plan = planSteps({ totalRiseIn: 42, targetRiserIn: 7, treadIn: 9 })
     expect(plan.warnings.find(w => w.code === 'step-proportion')?.message).toContain('deepen the tread')
   })
 
-  it('the edges of the 25–27 in band are still comfortable', () => {
-    expect(codes(planSteps({ totalRiseIn: 36, targetRiserIn: 6, treadIn: 13 }))).not.toContain('step-proportion')
-    expect(codes(planSteps({ totalRiseIn: 36, targetRiserIn: 6, treadIn: 15 }))).not.toContain('step-proportion')
+  // Blondel band edges, 24 and 26 in, from memory.
+  it('both edges of the 24–26 in band walk comfortably, and a tenth of an inch past either is flagged', () => {
+    const stride = (treadIn: number) => codes(planSteps({ totalRiseIn: 36, targetRiserIn: 6, treadIn }))
+    expect(stride(12), '2R + T = 24 in').not.toContain('step-proportion')
+    expect(stride(14), '2R + T = 26 in').not.toContain('step-proportion')
+    expect(stride(11.9), '2R + T = 23.9 in').toContain('step-proportion')
+    expect(stride(14.1), '2R + T = 26.1 in').toContain('step-proportion')
   })
 
   it('when two counts are equally close to the target, the crew gets the lower riser', () => {
@@ -167,5 +174,59 @@ describe('riseFromReadings', () => {
     expect(() => riseFromReadings(1, 2, 'cm' as 'mm')).toThrow(RangeError)
     expect(() => riseFromReadings(Number.NaN, 2, 'ft')).toThrow(RangeError)
     expect(() => riseFromReadings(1, Number.POSITIVE_INFINITY, 'ft')).toThrow(RangeError)
+  })
+})
+
+describe('rails, guards and landings on the step plan', () => {
+  const plan = (totalRiseIn: number, targetRiserIn = 7) => planSteps({ totalRiseIn, targetRiserIn, treadIn: 12 })
+
+  // IRC R311.7.8 (from memory): a handrail on at least one side of a flight with 4 or more risers.
+  it('3 risers need no handrail; 4 risers do', () => {
+    expect(plan(21).risers).toBe(3)
+    expect(plan(21).handrailRequired).toBe(false)
+    expect(plan(28).risers).toBe(4)
+    expect(plan(28).handrailRequired).toBe(true)
+    expect(plan(28).rulesSource).toContain('R311.7.8')
+  })
+
+  // IRC R312.1.1 (from memory): guards where the walking surface is more than 30 in above grade.
+  it('a flight topping out at exactly 30 in needs no guard; 30 1/16 in does', () => {
+    expect(plan(30, 7.5).guardRequired).toBe(false)
+    expect(plan(30.0625, 7.5).guardRequired).toBe(true)
+  })
+
+  // IRC R311.7.3 (from memory): a flight rises at most 151 in between landings.
+  it('a 151 in flight needs no landing part way; 151 1/16 in does', () => {
+    expect(plan(151, 7.5).landingRequired).toBe(false)
+    expect(plan(151.0625, 7.5).landingRequired).toBe(true)
+    expect(plan(151.0625, 7.5).rulesSource).toContain('R311.7.3')
+  })
+
+  it('names the IRC sections and says they are recalled, not read', () => {
+    expect(IRC_STAIR_RULES).toMatchObject({ handrailMinRisers: 4, guardAboveGradeIn: 30, maxFlightRiseIn: 151, basis: 'from memory' })
+    expect(plan(28).rulesBasis).toBe('from memory')
+  })
+})
+
+describe('stepUniformity, the as-built check', () => {
+  // IRC R311.7.5.1 (risers) and R311.7.5.2 (treads): largest minus smallest at most 3/8 in.
+  it('built risers 3/8 in apart are within the limit; 7/16 in apart are not', () => {
+    expect(stepUniformity([7, 7.125, 7.375])).toMatchObject({ spreadIn: 0.375, withinLimit: true })
+    expect(stepUniformity([7, 7.4375])).toMatchObject({ spreadIn: 0.4375, withinLimit: false })
+  })
+
+  it('names the largest and smallest step so the crew knows which to fix', () => {
+    expect(stepUniformity([11, 10.5, 11.25])).toMatchObject({ largestIn: 11.25, smallestIn: 10.5, spreadIn: 0.75, withinLimit: false })
+  })
+
+  it('floating-point noise does not fail steps exactly 3/8 in apart (7.1 and 7.475)', () => {
+    expect(stepUniformity([7.1, 7.475]).withinLimit).toBe(true)
+  })
+
+  it('refuses fewer than two steps, a zero, a negative or a blank (NaN) measure', () => {
+    expect(() => stepUniformity([7])).toThrow(RangeError)
+    expect(() => stepUniformity([7, 0])).toThrow(RangeError)
+    expect(() => stepUniformity([7, -7])).toThrow(RangeError)
+    expect(() => stepUniformity([7, Number.NaN])).toThrow(RangeError)
   })
 })

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import * as tradeData from '../../shared/utils/trade-data'
+import * as liftingData from '../../shared/utils/trade-data-lifting'
+import * as takeoffData from '../../shared/utils/trade-data-takeoff'
 import {
   BASE_DEPTH_BY_USE,
   BASE_DEPTH_FROST_OR_CLAY,
@@ -21,7 +23,7 @@ function sourcedEntries(value: unknown, path: string): Array<{ path: string, ent
 }
 
 describe('trade data', () => {
-  const entries = sourcedEntries(tradeData, 'trade-data')
+  const entries = [...sourcedEntries(tradeData, 'trade-data'), ...sourcedEntries(takeoffData, 'trade-data-takeoff'), ...sourcedEntries(liftingData, 'trade-data-lifting')]
 
   it('covers the compactors, base depths, bedding, overlaps and step rules', () => {
     expect(entries.length).toBeGreaterThan(20)
@@ -39,6 +41,20 @@ describe('trade data', () => {
     for (const { path, entry } of entries) {
       if (/from memory/i.test(entry.source as string)) expect(entry.basis, path).toBe('from memory')
     }
+  })
+
+  // The product's rule: makers' and industry associations' literature is common practice at best.
+  it('a figure from an industry association or a maker is never labelled published unless a code is cited with it', () => {
+    for (const { path, entry } of entries) {
+      const source = entry.source as string
+      const industry = /ICPI|NCMA|maker|manufacturer|installer|supplier|rental/i.test(source)
+      const code = /IRC|IBC|OSHA|CFR|NIOSH|International (Residential|Building) Code/.test(source)
+      if (industry && !code) expect(entry.basis, path).not.toBe('published')
+    }
+  })
+
+  it('the geotextile overlaps, taken from makers\u2019 copies of the FHWA table, are marked from memory', () => {
+    for (const overlap of GEOTEXTILE_OVERLAPS) expect(overlap.basis).toBe('from memory')
   })
 
   // IRC R311.7.5.1 and R311.7.5.2.
