@@ -163,6 +163,10 @@ describe('lift checks on the crew lead\'s phone', () => {
     expect(await checks.locator('[data-check="design_depth"]').innerText()).toMatch(/5\.5 in of the 6 in design: 0\.5 in still to place/)
     await form.getByLabel('Loose thickness (in)').fill('6')
     await expect.poll(() => loose.getAttribute('data-status')).toBe('pass')
+    // Typed as a tape reads: 2 1/4 in compacted is read as 2.25 in.
+    await form.getByLabel('Compacted thickness (in)').fill('2 1/4')
+    await expect.poll(() => checks.locator('[data-check="design_depth"]').innerText()).toMatch(/5\.25 in of the 6 in design/)
+    await form.getByLabel('Compacted thickness (in)').fill('2.5')
     // Logged anyway at 7 in, the lift keeps its warning in the day's list.
     await form.getByLabel('Loose thickness (in)').fill('7')
     await form.getByLabel('Material').fill('3/4 in crushed stone')
