@@ -11,9 +11,16 @@ export function useRecordErrors(kind: RecordKind, root: Ref<HTMLElement | undefi
   const errors = ref<Record<string, string>>({})
   const formError = ref('')
 
+  /** A rule across fields (finish after start) has a message of its own (errors.<kind>.<rule>); others, the field's. */
+  function translated(key: string, message: string, rule: string | undefined): string {
+    if (rule && te(`errors.${kind}.${rule}`)) return t(`errors.${kind}.${rule}`)
+    return te(`errors.${kind}.${key}`) ? t(`errors.${kind}.${key}`) : message
+  }
+
   function show(error: z.ZodError, fallback = ''): void {
     const { _form, ...found } = fieldErrorsOf(error)
-    errors.value = Object.fromEntries(Object.entries(found).map(([key, message]) => [key, te(`errors.${kind}.${key}`) ? t(`errors.${kind}.${key}`) : message]))
+    const rules = Object.fromEntries(error.issues.map(issue => [issue.path.join('.'), issue.code === 'custom' ? (issue.params as { rule?: string } | undefined)?.rule : undefined]))
+    errors.value = Object.fromEntries(Object.entries(found).map(([key, message]) => [key, translated(key, message, rules[key])]))
     formError.value = _form ?? fallback
     focusFirst()
   }

@@ -7,7 +7,11 @@ import { boundedDate } from './dates'
 const id = z.uuid('Not a valid id').transform(value => value.toLowerCase())
 const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`)
 const optionalText = (max: number) => text(max).nullable().optional()
-const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use a time like 07:30').nullable().optional()
+const clockTime = /^([01]\d|2[0-3]):[0-5]\d$/
+const clock = z.string().regex(clockTime, 'Use a time like 07:30').nullable().optional()
+const isRecord = (value: unknown): value is Record<string, unknown> => typeof value === 'object' && value !== null
+const bothNumbers = (value: unknown, a: string, b: string) => isRecord(value) && Number.isFinite(value[a]) && Number.isFinite(value[b])
+const bothClockTimes = (value: unknown) => isRecord(value) && clockTime.test(String(value.startedAt)) && clockTime.test(String(value.finishedAt))
 const number = (min: number, max: number, unit: string) =>
   z.number({ error: 'Enter a number' }).min(min, `At least ${min} ${unit}`).max(max, `At most ${max} ${unit}`)
 
@@ -26,6 +30,11 @@ export const daySheetRecord = z.strictObject({
   workDone: optionalText(4000),
   siteNotes: optionalText(4000),
   locateTicket: optionalText(60),
+}).refine(sheet => !sheet.startedAt || !sheet.finishedAt || sheet.finishedAt > sheet.startedAt, {
+  message: 'The finish must come after the start',
+  path: ['finishedAt'],
+  params: { rule: 'finishBeforeStart' },
+  when: ({ value }) => bothClockTimes(value),
 })
 
 export const timeEntryRecord = z.strictObject({
@@ -40,7 +49,7 @@ export const materialDropRecord = z.strictObject({
   id,
   daySheetId: id,
   material: text(120).min(1, 'Name the material'),
-  quantity: number(0.01, 100_000, ''),
+  quantity: z.number({ error: 'Enter how much came, as a number' }).gt(0, 'Enter how much came: more than 0').max(100_000, 'At most 100000'),
   unit: text(20).min(1, 'Give the unit'),
   stagedAt: optionalText(160),
   ticketNumber: optionalText(60),
@@ -56,7 +65,13 @@ export const liftRecord = z.strictObject({
   passes: z.number().int('Whole passes only').min(1, 'At least 1 pass').max(50, 'At most 50 passes'),
   compactorClass: text(40).min(1, 'Choose the compactor'),
   moistureNote: optionalText(255),
-}).refine(lift => lift.compactedIn <= lift.looseIn, { message: 'Compacted thickness cannot exceed the loose thickness', path: ['compactedIn'] })
+}).refine(lift => lift.compactedIn <= lift.looseIn, {
+  message: 'Compacted thickness cannot exceed the loose thickness',
+  path: ['compactedIn'],
+  params: { rule: 'compactedOverLoose' },
+  // Shown with every other error at once, whenever both thicknesses are numbers.
+  when: ({ value }) => bothNumbers(value, 'looseIn', 'compactedIn'),
+})
 
 /** A zone's design values, written from the Plan screen by the foreman or the office. */
 export const zoneRecord = z.strictObject({

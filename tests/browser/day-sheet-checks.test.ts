@@ -1,0 +1,72 @@
+// The day sheet on the phone says what is wrong the moment it is saved: a finish before the start,
+// a lift compacted thicker than it was laid, a negative delivery, all at once and in the crew
+// lead's language.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { url } from '@nuxt/test-utils/e2e'
+import type { Browser, Page } from 'playwright-core'
+import { useBuiltServer } from '../support/server'
+import { createCompany, fixturePassword, type FixtureCompany } from '../support/fixtures'
+import { addZoneAndCrew } from '../support/daybook'
+import { testDb } from '../support/db'
+import { launchBrowser, phoneContext, signInInBrowser, waitForApp } from '../support/browser'
+import en from '../../i18n/locales/en.json'
+import es from '../../i18n/locales/es.json'
+
+await useBuiltServer()
+
+let browser: Browser
+let company: FixtureCompany
+let zoneId = ''
+const today = new Date().toISOString().slice(0, 10)
+beforeAll(async () => {
+  company = await createCompany('Checked Day Pavers')
+  ;({ zoneId } = await addZoneAndCrew(company.organisationId, company.jobId))
+  browser = await launchBrowser()
+})
+afterAll(async () => {
+  await browser?.close()
+})
+
+async function daySheet(locale: 'en' | 'es'): Promise<Page> {
+  await testDb()('users').where({ id: company.lead.userId }).update({ locale })
+  const context = await phoneContext(browser, { baseURL: url('/').replace(/\/$/, ''), timezoneId: 'UTC' })
+  const page = await context.newPage()
+  await signInInBrowser(page, company.lead.email, fixturePassword)
+  await page.goto(`/day/${company.jobId}/${today}`)
+  await waitForApp(page)
+  return page
+}
+
+describe('the day sheet\'s checks on the phone', () => {
+  for (const [locale, words] of [['en', en], ['es', es]] as const) {
+    it(`refuses a finish before the start, in ${locale}`, async () => {
+      const page = await daySheet(locale)
+      await page.getByLabel(words.field.startedAt, { exact: true }).fill('15:30')
+      await page.getByLabel(words.field.finishedAt, { exact: true }).fill('07:00')
+      await page.getByTestId('save-day').click()
+      await page.getByText(words.errors.day_sheet.finishBeforeStart).waitFor()
+      expect(await testDb()('day_sheets').where({ job_id: company.jobId }).first()).toBeUndefined()
+      await page.context().close()
+    })
+  }
+
+  it('shows a lift compacted over its loose thickness with the lift\'s other errors, and a negative delivery as "more than 0"', async () => {
+    const page = await daySheet('en')
+    const lift = page.locator('form').filter({ has: page.getByTestId('add-lift') })
+    await lift.getByLabel('Zone').selectOption(zoneId)
+    await lift.getByLabel('Loose thickness (in)').fill('3')
+    await lift.getByLabel('Compacted thickness (in)').fill('4')
+    await lift.getByLabel('Passes').fill('0')
+    await lift.getByTestId('add-lift').click()
+    await lift.getByText(en.errors.lift.compactedOverLoose).waitFor()
+    await lift.getByText(en.errors.lift.passes).waitFor()
+
+    const drop = page.locator('form').filter({ has: page.getByTestId('add-drop') })
+    await drop.getByLabel('Material').fill('Bedding sand')
+    await drop.getByLabel('Quantity').fill('-3')
+    await drop.getByLabel('Unit').fill('ton')
+    await drop.getByTestId('add-drop').click()
+    await drop.getByText(en.errors.material_drop.quantity).waitFor()
+    await page.context().close()
+  })
+})
