@@ -1,6 +1,7 @@
 // The day sheet on the phone says what is wrong the moment it is saved: a finish before the start,
 // a lift compacted thicker than it was laid, a negative delivery, all at once and in the crew
 // lead's language.
+import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { url } from '@nuxt/test-utils/e2e'
 import type { Browser, Page } from 'playwright-core'
@@ -21,6 +22,7 @@ const today = new Date().toISOString().slice(0, 10)
 beforeAll(async () => {
   company = await createCompany('Checked Day Pavers')
   ;({ zoneId } = await addZoneAndCrew(company.organisationId, company.jobId))
+  await testDb()('material_estimates').insert({ id: randomUUID(), job_id: company.jobId, material: 'Polymeric joint sand', quantity: 12, unit: 'bag' })
   browser = await launchBrowser()
 })
 afterAll(async () => {
@@ -67,6 +69,18 @@ describe('the day sheet\'s checks on the phone', () => {
     await drop.getByLabel('Unit').fill('ton')
     await drop.getByTestId('add-drop').click()
     await drop.getByText(en.errors.material_drop.quantity).waitFor()
+    await page.context().close()
+  })
+
+  it('offers the job\'s estimate lines for a drop, one tap filling its material and unit', async () => {
+    const page = await daySheet('en')
+    const drop = page.locator('form').filter({ has: page.getByTestId('add-drop') })
+    await drop.getByRole('button', { name: 'Polymeric joint sand · bag' }).click()
+    expect(await drop.getByLabel('Material').inputValue()).toBe('Polymeric joint sand')
+    expect(await drop.getByLabel('Unit').inputValue()).toBe('bag')
+    await drop.getByLabel('Quantity').fill('4')
+    await drop.getByTestId('add-drop').click()
+    await page.getByText('4 bag · Polymeric joint sand').waitFor()
     await page.context().close()
   })
 })
