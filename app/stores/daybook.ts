@@ -55,6 +55,15 @@ export const useDaybookStore = defineStore('daybook', () => {
   const roster = computed(() => meta.value?.roster ?? [])
   const sheets = computed(() => all('day_sheet') as unknown as DaySheetRecord[])
   const sheetFor = (jobId: string, workDate: string) => sheets.value.find(s => s.jobId === jobId && s.workDate === workDate)
+  /** Crew members with hours on another job's sheet that day (as far as this phone knows), to the names of those jobs. */
+  function crewElsewhere(jobId: string, workDate: string): Map<string, string[]> {
+    const found = new Map<string, string[]>()
+    for (const sheet of sheets.value.filter(s => s.workDate === workDate && s.jobId !== jobId)) {
+      const name = jobs.value.find(j => j.id === sheet.jobId)?.name ?? ''
+      for (const entry of entriesOf(sheet.id)) found.set(entry.crewMemberId, [...(found.get(entry.crewMemberId) ?? []), name])
+    }
+    return found
+  }
   const childrenOf = <T>(kind: RecordKind, sheetId: string) => all(kind).filter(r => r.daySheetId === sheetId) as unknown as T[]
   const entriesOf = (sheetId: string) => childrenOf<TimeEntryRecord>('time_entry', sheetId)
   const dropsOf = (sheetId: string) => childrenOf<MaterialDropRecord>('material_drop', sheetId)
@@ -187,7 +196,7 @@ export const useDaybookStore = defineStore('daybook', () => {
 
   return {
     ready: skipHydrate(ready), jobs, roster, load, reloadRecords, refreshFromServer,
-    sheetFor, entriesOf, dropsOf, liftsOf, lastCrewFor, photosOf, stateOf, reviewStateOf,
+    sheetFor, crewElsewhere, entriesOf, dropsOf, liftsOf, lastCrewFor, photosOf, stateOf, reviewStateOf,
     saveDaySheet: (r: DaySheetRecord) => save('day_sheet', r),
     saveLift: (r: LiftRecord) => save('lift', r),
     saveDrop: (r: MaterialDropRecord) => save('material_drop', r),

@@ -18,10 +18,18 @@ await useBuiltServer()
 let browser: Browser
 let company: FixtureCompany
 let zoneId = ''
+let crew: string[] = []
 const today = new Date().toISOString().slice(0, 10)
 beforeAll(async () => {
   company = await createCompany('Checked Day Pavers')
-  ;({ zoneId } = await addZoneAndCrew(company.organisationId, company.jobId))
+  ;({ zoneId, crew } = await addZoneAndCrew(company.organisationId, company.jobId))
+  // The lead's other job, where Crew 1 already has hours today.
+  const otherJob = randomUUID()
+  const otherSheet = randomUUID()
+  await testDb()('jobs').insert({ id: otherJob, organisation_id: company.organisationId, name: 'Larch Court steps', customer_name: 'Larch customer', site_address: '9 Larch Court', status: 'active', crew_days_bid: 2, crew_size: 2, person_hours_bid: 32, start_date: '2026-11-02', foreman_id: company.foreman.userId })
+  await testDb()('job_crew_leads').insert({ job_id: otherJob, user_id: company.lead.userId })
+  await testDb()('day_sheets').insert({ id: otherSheet, job_id: otherJob, work_date: today, status: 'half_day', author_id: company.lead.userId })
+  await testDb()('time_entries').insert({ id: randomUUID(), day_sheet_id: otherSheet, crew_member_id: crew[0], hours: 4 })
   await testDb()('material_estimates').insert({ id: randomUUID(), job_id: company.jobId, material: 'Polymeric joint sand', quantity: 12, unit: 'bag' })
   browser = await launchBrowser()
 })
@@ -69,6 +77,15 @@ describe('the day sheet\'s checks on the phone', () => {
     await drop.getByLabel('Unit').fill('ton')
     await drop.getByTestId('add-drop').click()
     await drop.getByText(en.errors.material_drop.quantity).waitFor()
+    await page.context().close()
+  })
+
+  it('warns, without blocking, when a crew member already has hours on another job that day', async () => {
+    const page = await daySheet('en')
+    await page.getByRole('button', { name: 'Crew 1' }).click()
+    await page.getByRole('button', { name: 'Crew 2' }).click()
+    expect(await page.getByTestId(`elsewhere-${crew[0]}`).innerText()).toContain('Larch Court steps')
+    expect(await page.getByTestId(`elsewhere-${crew[1]}`).count()).toBe(0)
     await page.context().close()
   })
 
