@@ -12,6 +12,7 @@ export type SessionEnd = 'signed_out' | 'password_changed' | 'password_reset' | 
 export async function openSession(event: H3Event, user: User): Promise<User> {
   const sessionId = randomUUID()
   await useDb()('user_sessions').insert({ id: sessionId, user_id: user.id, organisation_id: user.organisationId })
+  await pruneSessions(user.id)
   await replaceUserSession(event, { user, secure: { sessionId }, signedInAt: Date.now() })
   return user
 }
@@ -25,4 +26,12 @@ export async function endSessionsOf(db: Knex | Knex.Transaction, userId: string,
   await db('user_sessions').where({ user_id: userId, ...(options.organisationId ? { organisation_id: options.organisationId } : {}) })
     .whereNull('ended_at').modify(q => options.keep ? q.whereNot('id', options.keep) : q)
     .update({ ended_at: new Date(), ended_reason: reason })
+}
+
+/** The user's sign-ins that can no longer be used (ended, or older than a cookie lives) are deleted at the next sign-in. */
+async function pruneSessions(userId: string): Promise<void> {
+  const maxAgeSeconds = Number((useRuntimeConfig().session as { maxAge?: number }).maxAge ?? 30 * 86_400)
+  await useDb()('user_sessions').where({ user_id: userId })
+    .andWhere(q => q.whereRaw('ended_at < NOW(3) - INTERVAL 1 DAY').orWhereRaw('created_at < NOW(3) - INTERVAL ? SECOND', [maxAgeSeconds]))
+    .delete()
 }

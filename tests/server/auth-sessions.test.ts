@@ -52,6 +52,23 @@ describe('signing out', () => {
   })
 })
 
+describe('sign-ins kept on the server', () => {
+  it('are cleared at the next sign-in once they have ended or outlived the cookie, and kept while they can still be used', async () => {
+    const target = await createCompany('Tidy Sessions Masonry')
+    const day = 86_400_000
+    const rows = [
+      { id: randomUUID(), ended_at: new Date(Date.now() - 2 * day), created_at: new Date(Date.now() - 3 * day) },
+      { id: randomUUID(), ended_at: null, created_at: new Date(Date.now() - 31 * day) },
+      { id: randomUUID(), ended_at: null, created_at: new Date(Date.now() - 2 * day) },
+    ]
+    await testDb()('user_sessions').insert(rows.map(r => ({ ...r, user_id: target.lead.userId, organisation_id: target.organisationId })))
+    await signedIn(target.lead.email)
+    const left = await testDb()('user_sessions').where({ user_id: target.lead.userId }).pluck('id')
+    expect(left).toHaveLength(2)
+    expect(left).toContain(rows[2]!.id)
+  })
+})
+
 describe('a new password', () => {
   it('signs out every other phone of the account, and keeps the one that changed it', async () => {
     const here = await signedIn(company.otherLead.email)
