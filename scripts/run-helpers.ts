@@ -1,3 +1,4 @@
+import { createServer } from 'node:net'
 import { TampSetupError } from './debian'
 
 /** Expected failures reach the person at the terminal as one line, not a stack trace. */
@@ -25,4 +26,14 @@ export async function waitForHealth(url: string, timeoutMs = 60_000): Promise<vo
     await new Promise(r => setTimeout(r, 300))
   }
   throw new TampSetupError(`Tamp: the server did not become healthy at ${url} within ${timeoutMs / 1000} s (${last})`)
+}
+
+/** A port on 127.0.0.1 that nothing listens on right now. */
+export async function freePort(): Promise<number> {
+  return await new Promise((resolve, reject) => {
+    const probe = createServer().once('error', reject).listen(0, '127.0.0.1', () => {
+      const address = probe.address()
+      probe.close(() => typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no free port')))
+    })
+  })
 }

@@ -1,14 +1,13 @@
 // Shared pieces of the benchmarks: a fresh database, the built server as a child process, timing.
 import { spawn, type ChildProcess } from 'node:child_process'
 import { readFileSync } from 'node:fs'
-import { createServer } from 'node:net'
 import { resolve } from 'node:path'
 import type { Knex } from 'knex'
 import { root, serverEnv } from '../config'
 import { createDatabase, ensureDatabaseServer } from '../db'
 import { ensureBuild } from '../build'
 import { connect, migrateLatest } from '../migrate'
-import { waitForHealth } from '../run-helpers'
+import { freePort, waitForHealth } from '../run-helpers'
 
 export async function freshDatabase(name: string): Promise<Knex> {
   await ensureDatabaseServer()
@@ -17,27 +16,18 @@ export async function freshDatabase(name: string): Promise<Knex> {
   return connect(name)
 }
 
-async function freePort(): Promise<number> {
-  return await new Promise((ok, fail) => {
-    const probe = createServer().listen(0, '127.0.0.1', () => {
-      const address = probe.address()
-      probe.close(() => typeof address === 'object' && address ? ok(address.port) : fail(new Error('no port')))
-    })
-  })
-}
-
 export interface RunningServer { url: string, process: ChildProcess, stop: () => Promise<void>, peakRssMb: () => number }
 
 export async function startServer(database: string, env: Record<string, string> = {}): Promise<RunningServer> {
   ensureBuild()
   const port = await freePort()
+  const url = `http://127.0.0.1:${port}`
   // BENCH_CPU_PROFILE=<dir> writes the server's CPU profile there when it stops (open it in Chromium's DevTools).
   const profile = process.env.BENCH_CPU_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${resolve(process.env.BENCH_CPU_PROFILE)}`] : []
   const child = spawn(process.execPath, [...profile, resolve(root, '.output', 'server', 'index.mjs')], {
     stdio: ['ignore', 'ignore', 'inherit'],
-    env: { ...process.env, ...serverEnv(database, { NUXT_APP_URL: `http://127.0.0.1:${port}`, ...env }), PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'production' },
+    env: { ...process.env, ...serverEnv(database, { NUXT_APP_URL: url, ...env }), PORT: String(port), HOST: '127.0.0.1', NODE_ENV: 'production' },
   })
-  const url = `http://127.0.0.1:${port}`
   await waitForHealth(`${url}/api/health`)
   return {
     url,

@@ -1,8 +1,8 @@
 // Starts the built Nitro server (.output, built by `npm test`) against the test database for one test file.
 import { resolve } from 'node:path'
-import { createServer } from 'node:net'
 import { setup } from '@nuxt/test-utils/e2e'
 import { root, serverEnv } from '../../scripts/config'
+import { freePort } from '../../scripts/run-helpers'
 
 export const testDatabase = process.env.TAMP_TEST_DB || 'tamp_test'
 
@@ -16,14 +16,5 @@ export async function useBuiltServer(env: Record<string, string> = {}): Promise<
     port,
     nuxtConfig: { nitro: { output: { dir: resolve(root, '.output') } } },
     env: serverEnv(testDatabase, { NUXT_APP_URL: `http://127.0.0.1:${port}`, ...env }),
-  })
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer().once('error', reject).listen(0, '127.0.0.1', () => {
-      const address = probe.address()
-      probe.close(() => typeof address === 'object' && address ? resolve(address.port) : reject(new Error('no free port')))
-    })
   })
 }
