@@ -47,17 +47,9 @@ export function signInAddress(event: H3Event): string {
  * without it they get 409 with the companies to choose from (only once the password was right).
  */
 export async function signIn(event: H3Event, email: string, password: string, organisationId?: string): Promise<User> {
-  const ip = signInAddress(event)
-  await claimSignInGuess(event, email, ip)
   const accounts = await findAccounts({ email })
   const account = accounts[0]
-  decoyHash ??= hashPassword('not-a-password-anyone-has')
-  const matches = await verifyPassword(account?.password_hash ?? await decoyHash, password)
-  if (!account?.password_hash || !matches) {
-    await recordFailedSignIn(email, ip)
-    throw createError({ statusCode: 401, statusMessage: wrongPairMessage })
-  }
-  await clearFailedSignIns(email, ip)
+  if (!await passwordGuess(event, email, account?.password_hash, password)) throw createError({ statusCode: 401, statusMessage: wrongPairMessage })
   const chosen = organisationId ? accounts.find(a => a.organisation_id === organisationId) : accounts.length === 1 ? account : undefined
   if (!chosen) {
     throw createError({
@@ -67,4 +59,21 @@ export async function signIn(event: H3Event, email: string, password: string, or
     })
   }
   return await startSession(event, chosen)
+}
+
+/**
+ * One password guess for an account, through the sign-in throttle (429 once it is used up): false for
+ * a wrong password or an address without one, which takes as long to refuse as a wrong password.
+ */
+export async function passwordGuess(event: H3Event, email: string, passwordHash: string | null | undefined, password: string): Promise<boolean> {
+  const ip = signInAddress(event)
+  await claimSignInGuess(event, email, ip)
+  decoyHash ??= hashPassword('not-a-password-anyone-has')
+  const matches = await verifyPassword(passwordHash ?? await decoyHash, password)
+  if (!passwordHash || !matches) {
+    await recordFailedSignIn(email, ip)
+    return false
+  }
+  await clearFailedSignIns(email, ip)
+  return true
 }

@@ -96,7 +96,9 @@ export async function acceptInvitation(event: H3Event, body: AcceptRequestBody):
   const invitation = await invitationByToken(body.token)
   const newPerson = invitation.userId ? undefined : asNew ?? acceptInvitationBody.safeParse(body)
   if (newPerson && !newPerson.success) throw invalidInput(newPerson.error)
-  if (invitation.userId) await checkOwnPassword(event, invitation.email, invitation.passwordHash, body.password)
+  if (invitation.userId && !await passwordGuess(event, invitation.email, invitation.passwordHash, body.password)) {
+    throw createError({ statusCode: 422, statusMessage: 'Some fields need a look', data: { fieldErrors: { password: 'This is not the password of your Tamp account' } } })
+  }
   const passwordHash = newPerson?.success ? await hashPassword(newPerson.data.password) : undefined
   return await useDb().transaction(async (trx) => {
     // The row lock makes a double-tapped accept create one account, not two.
@@ -114,15 +116,4 @@ export async function acceptInvitation(event: H3Event, body: AcceptRequestBody):
     await audit(trx, { organisationId: invitation.organisationId, userId }, 'invitation.accepted', 'invitation', invitation.id, { role: invitation.role, existingAccount: Boolean(invitation.userId) })
     return { userId, organisationId: invitation.organisationId }
   })
-}
-
-/** The account's own password, counted by the sign-in throttle like any sign-in. */
-async function checkOwnPassword(event: H3Event, email: string, passwordHash: string | null, password: string): Promise<void> {
-  const ip = signInAddress(event)
-  await claimSignInGuess(event, email, ip)
-  if (!passwordHash || !await verifyPassword(passwordHash, password)) {
-    await recordFailedSignIn(email, ip)
-    throw createError({ statusCode: 422, statusMessage: 'Some fields need a look', data: { fieldErrors: { password: 'This is not the password of your Tamp account' } } })
-  }
-  await clearFailedSignIns(email, ip)
 }
