@@ -4,7 +4,6 @@
 // and only until it is sent or given up, so the database never holds a usable link for long.
 import { createCipheriv, createDecipheriv, createHash, randomBytes } from 'node:crypto'
 import type { OutgoingMail } from './mail'
-import { retryDelayMs } from './mail-retry'
 
 type MessageKind = 'password_reset'
 
@@ -35,29 +34,7 @@ export async function queueMessage(kind: MessageKind, message: OutgoingMail): Pr
 
 interface MessageRow { id: number, kind: MessageKind, sealed_message: string, attempts: number, next_attempt_at: Date }
 
-/** Sends what is due, each row claimed first so that two instances never send one message twice. */
+/** Sends what is due; the sealed message is cleared once it is sent or given up. */
 export async function sendQueuedMessages(settings: OutboxSettings, now = new Date()): Promise<void> {
-  const db = useDb()
-  const due: MessageRow[] = await db('mail_messages').whereNull('sent_at').whereNotNull('sealed_message')
-    .where('next_attempt_at', '<=', now).orderBy('id').limit(20)
-  for (const row of due) {
-    const lease = new Date(now.getTime() + 10 * 60_000)
-    const claimed = await db('mail_messages').where({ id: row.id, next_attempt_at: row.next_attempt_at }).whereNull('sent_at').update({ next_attempt_at: lease })
-    if (!claimed) continue
-    const attempts = row.attempts + 1
-    try {
-      await deliverMail(unseal(row.sealed_message))
-      await db('mail_messages').where({ id: row.id }).update({ sent_at: new Date(), attempts, sealed_message: null, last_error: null, updated_at: new Date() })
-    }
-    catch (error) {
-      const reason = (error instanceof Error ? error.message : String(error)).slice(0, 500)
-      const givenUp = attempts >= settings.maxAttempts
-      await db('mail_messages').where({ id: row.id }).update({
-        attempts, last_error: reason, updated_at: new Date(),
-        next_attempt_at: new Date(Date.now() + retryDelayMs(attempts, settings.intervalSeconds)),
-        ...(givenUp ? { sealed_message: null } : {}),
-      })
-      console.error(`[mail messages] ${row.kind} ${row.id} failed (attempt ${attempts} of ${settings.maxAttempts}): ${reason}`)
-    }
-  }
+  await sendQueued<MessageRow>('mail_messages', settings, now, async row => unseal(row.sealed_message), { sealed_message: null })
 }

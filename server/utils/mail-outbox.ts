@@ -54,26 +54,41 @@ function safeDateIn(timeZone: string, now: Date) {
 
 interface OutboxRow { id: number, kind: 'day_report' | 'rain_out', audience: 'office' | 'homeowner', day_sheet_id: string, attempts: number, next_attempt_at: Date }
 
-/** Sends the due messages one by one; each failure is recorded on its row and tried again later. */
+/** Sends the due day reports and rain-out notices. */
 export async function sendDueMail(settings: OutboxSettings, now = new Date()): Promise<void> {
+  await sendQueued<OutboxRow>('mail_outbox', settings, now, composeMessage)
+}
+
+interface QueuedRow { id: number, kind: string, attempts: number, next_attempt_at: Date }
+
+/**
+ * Sends a mail queue's due rows one by one, each claimed first: another server process that read it
+ * too finds next_attempt_at moved and skips it. A failure is recorded on its row and tried again
+ * later. `compose` makes a row's message (undefined: nobody to send it to); `finished` columns are
+ * written once a row is sent or given up.
+ */
+export async function sendQueued<R extends QueuedRow>(table: 'mail_outbox' | 'mail_messages', settings: OutboxSettings, now: Date, compose: (row: R) => Promise<OutgoingMail | undefined>, finished: Record<string, unknown> = {}): Promise<void> {
   const db = useDb()
-  const due: OutboxRow[] = await db('mail_outbox').whereNull('sent_at').where('attempts', '<', settings.maxAttempts)
+  const due: R[] = await db(table).whereNull('sent_at').where('attempts', '<', settings.maxAttempts)
     .where('next_attempt_at', '<=', now).orderBy('id').limit(20)
   for (const row of due) {
-    // Claim the row: another server process that read it too finds next_attempt_at moved and skips it.
     const lease = new Date(now.getTime() + 10 * 60_000)
-    const claimed = await db('mail_outbox').where({ id: row.id, next_attempt_at: row.next_attempt_at }).whereNull('sent_at').update({ next_attempt_at: lease })
+    const claimed = await db(table).where({ id: row.id, next_attempt_at: row.next_attempt_at }).whereNull('sent_at').update({ next_attempt_at: lease })
     if (!claimed) continue
+    const attempts = row.attempts + 1
     try {
-      const message = await composeMessage(row)
+      const message = await compose(row)
       if (message) await deliverMail(message)
-      await db('mail_outbox').where({ id: row.id }).update({ sent_at: new Date(), attempts: row.attempts + 1, last_error: message ? null : 'Nobody to send it to', updated_at: new Date() })
+      await db(table).where({ id: row.id }).update({ sent_at: new Date(), attempts, last_error: message ? null : 'Nobody to send it to', updated_at: new Date(), ...finished })
     }
     catch (error) {
-      const attempts = row.attempts + 1
       const reason = (error instanceof Error ? error.message : String(error)).slice(0, 500)
-      await db('mail_outbox').where({ id: row.id }).update({ attempts, last_error: reason, next_attempt_at: new Date(Date.now() + retryDelayMs(attempts, settings.intervalSeconds)), updated_at: new Date() })
-      console.error(`[mail outbox] ${row.kind} ${row.id} failed (attempt ${attempts} of ${settings.maxAttempts}): ${reason}`)
+      await db(table).where({ id: row.id }).update({
+        attempts, last_error: reason, updated_at: new Date(),
+        next_attempt_at: new Date(Date.now() + retryDelayMs(attempts, settings.intervalSeconds)),
+        ...(attempts >= settings.maxAttempts ? finished : {}),
+      })
+      console.error(`[${table}] ${row.kind} ${row.id} failed (attempt ${attempts} of ${settings.maxAttempts}): ${reason}`)
     }
   }
 }
