@@ -14,7 +14,6 @@ export interface WallPlanInput {
   /** Block depth, face to back, in inches. */
   unitDepthIn: number
   capHeightIn: number
-  capLengthIn: number
   /** Compacted leveling pad under the first course, in inches. */
   padDepthIn: number
   /** How much of the block courses is below the finished grade at the toe, in inches. */
@@ -47,7 +46,6 @@ export interface WallPlan {
   batterDeg: number
   /** From the face at the toe to the back of the drainage stone at the top, in inches. */
   footprintIn: number
-  caps: number
 }
 
 const cuYd = (lengthFt: number, widthIn: number, depthIn: number) => (lengthFt * (widthIn / 12) * (depthIn / 12)) / CU_FT_PER_CU_YD
@@ -64,7 +62,6 @@ export function wallPlan(input: WallPlanInput): WallPlan {
   const unitHeightIn = requirePositiveNumber('unitHeightIn', input.unitHeightIn)
   const unitDepthIn = requirePositiveNumber('unitDepthIn', input.unitDepthIn)
   const capHeightIn = requireNonNegativeNumber('capHeightIn', input.capHeightIn)
-  const capLengthIn = requirePositiveNumber('capLengthIn', input.capLengthIn)
   const padDepthIn = requireNonNegativeNumber('padDepthIn', input.padDepthIn)
   const buriedIn = requireNonNegativeNumber('buriedIn', input.buriedIn)
   const setbackPerCourseIn = requireNonNegativeNumber('setbackPerCourseIn', input.setbackPerCourseIn)
@@ -93,6 +90,5 @@ export function wallPlan(input: WallPlanInput): WallPlan {
     totalSetbackIn,
     batterDeg: (Math.atan(setbackPerCourseIn / unitHeightIn) * 180) / Math.PI,
     footprintIn: unitDepthIn + totalSetbackIn + drainWidthIn,
-    caps: ceilCount((lengthFt * 12) / capLengthIn),
   }
 }

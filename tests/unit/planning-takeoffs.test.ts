@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { beddingSand, edgeRestraint, excavation, jointSand, pallets, wallPlan, type WallPlanInput } from '../../shared/utils/planning'
+import { beddingSand, edgeRestraint, excavation, jointSand, pallets, wallPlan, wallUnits, type WallPlanInput } from '../../shared/utils/planning'
 import { cautionsFor } from '../../shared/utils/cautions'
 import { BASE_EXTENSION_RULES, BEDDING_SAND } from '../../shared/utils/trade-data'
 import { SOIL_SWELL_FACTOR, WALL_DRAIN_AGGREGATE_WIDTH_IN, WALL_EMBEDMENT } from '../../shared/utils/trade-data-takeoff'
@@ -8,14 +8,16 @@ import { SOIL_SWELL_FACTOR, WALL_DRAIN_AGGREGATE_WIDTH_IN, WALL_EMBEDMENT } from
 // sourced starting figures: 12 in drainage stone and 6 in pad past the block (SRW guides, common
 // practice / from memory), embedment the greater of 6 in or H/8 (makers' guides, from memory).
 const wall: WallPlanInput = {
-  lengthFt: 40, blockHeightIn: 36, unitHeightIn: 6, unitDepthIn: 12, capHeightIn: 4, capLengthIn: 12,
+  lengthFt: 40, blockHeightIn: 36, unitHeightIn: 6, unitDepthIn: 12, capHeightIn: 4,
   padDepthIn: 6, buriedIn: 6, setbackPerCourseIn: 0.75,
 }
 
 describe('wallPlan', () => {
   it('a 40 ft wall of six 6 in courses on a 6 in pad with a 4 in cap stands 46 in from the bottom of the pad to the top of the cap', () => {
     const plan = wallPlan(wall)
-    expect(plan).toMatchObject({ courses: 6, builtBlockIn: 36, totalHeightIn: 46, exposedHeightIn: 34, digDepthIn: 12, caps: 40 })
+    expect(plan).toMatchObject({ courses: 6, builtBlockIn: 36, totalHeightIn: 46, exposedHeightIn: 34, digDepthIn: 12 })
+    // Its caps, counted with the block: one 12 in cap per foot of wall.
+    expect(wallUnits({ lengthFt: 40, heightIn: 36, unitLengthIn: 18, unitHeightIn: 6, capLengthIn: 12 })).toMatchObject({ courses: plan.courses, caps: 40 })
   })
 
   // IRC R105.2 and NCMA (cautions.ts): over 4 ft bottom of pad to top of wall needs an engineer.
