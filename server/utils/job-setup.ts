@@ -2,6 +2,7 @@
 // their design values and the material estimate, in one transaction with one audit row.
 import { createHash } from 'node:crypto'
 import type { Knex } from 'knex'
+import { matchKey } from '../../shared/utils/text-match'
 import type { Member } from './members'
 import type { JobCreateBody, JobUpdateBody } from '../../shared/schemas/jobs'
 import type { RecordOf } from '../../shared/schemas/daybook'
@@ -162,17 +163,26 @@ async function insertLines<K extends PlanKind>(trx: Knex.Transaction, kind: K, j
 
 /** The lines already stored (`known`) are updated, each bumping the revision the phones check; the new ones inserted. */
 async function writeLines<K extends PlanKind>(trx: Knex.Transaction, kind: K, jobId: string, lines: Line<K>[], known: Set<string>): Promise<void> {
-  // Updates first: a new estimate line may take the material and unit an updated line gave up. Two
-  // kept lines may also trade theirs: each goes through a name of its own first, so that the unique
-  // key never sees two lines with one name midway.
+  // Updates first: a new estimate line may take the material and unit an updated line gave up.
   const kept = lines.filter(l => known.has(l.id))
-  if (kind === 'material_estimate' && kept.length > 1) {
-    for (const line of kept) await trx(tableOf(kind)).where({ id: line.id }).update({ material: `\u0001${line.id}` })
-  }
+  if (kind === 'material_estimate') await freeChangedNames(trx, kept as Line<'material_estimate'>[])
   for (const line of kept) {
     await trx(tableOf(kind)).where({ id: line.id }).update({ ...toRow(kind, jobId, line), revision: trx.raw('revision + 1'), updated_at: new Date() })
   }
   await insertLines(trx, kind, jobId, lines.filter(l => !known.has(l.id)))
+}
+
+/**
+ * Kept estimate lines may trade their material and unit: when two or more change them, each goes
+ * through a name of its own first, so that the unique key never sees two lines with one name midway.
+ */
+async function freeChangedNames(trx: Knex.Transaction, kept: Line<'material_estimate'>[]): Promise<void> {
+  if (kept.length < 2) return
+  const stored = new Map((await trx('material_estimates').whereIn('id', kept.map(l => l.id)).select('id', 'material', 'unit'))
+    .map(row => [row.id as string, `${matchKey(row.material)}|${matchKey(row.unit)}`]))
+  const changed = kept.filter(l => stored.get(l.id) !== `${matchKey(l.material)}|${matchKey(l.unit)}`)
+  if (changed.length < 2) return
+  await trx('material_estimates').whereIn('id', changed.map(l => l.id)).update({ material: trx.raw('CONCAT(CHAR(1), id)') })
 }
 
 export interface JobSetup extends Omit<JobUpdateBody, 'status'> {
