@@ -1,6 +1,6 @@
 import { defineConfig } from 'vitest/config'
 
-// Three suites: pure code in node, the built server over HTTP with the real MariaDB, and real Chromium.
+// Four suites: pure code in node, the built server over HTTP with the real MariaDB, the fault suite, and real Chromium.
 // `npm test` (scripts/test.ts) prepares the database and the build before vitest starts.
 export default defineConfig({
   test: {
@@ -24,6 +24,17 @@ export default defineConfig({
           // The files share one test database and start servers of their own: one at a time.
           fileParallelism: false,
           testTimeout: 60_000,
+          hookTimeout: 180_000,
+        },
+      },
+      {
+        test: {
+          // Phones sending through lost answers, a killed server and a stopped database (its own MariaDB).
+          name: 'faults',
+          include: ['tests/faults/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 300_000,
           hookTimeout: 180_000,
         },
       },
