@@ -32,6 +32,8 @@ export function backoffMs(attempts: number, random: number, retryAfterSeconds?: 
 
 const recordKey = (kind: SyncKind, id: string) => `${kind}:${id}`
 
+interface QueuedChange { userId: string, key: string, kind: SyncKind, record: Record<string, unknown> & { id: string }, op: 'upsert' | 'delete', label: string }
+
 export class OutboxEngine {
   status: OutboxStatus = 'idle'
   progress: OutboxProgress = { records: { done: 0, total: 0 }, bytes: { done: 0, total: 0 } }
@@ -60,9 +62,16 @@ export class OutboxEngine {
     const key = recordKey(kind, record.id)
     const local = await idb.get<LocalRecord>('records', key)
     const entry = await idb.get<OutboxEntry>('outbox', key)
+    // The change is queued before the phone's copy shows it: when the phone is out of space, the first
+    // write fails and nothing looks saved that would never be sent.
+    await this.queueChange({ userId, key, kind, record, op, label }, entry, local)
     if (op === 'delete') await idb.remove('records', key)
     else await idb.put('records', key, { ...local, kind, record, revision: local?.revision ?? null })
+    this.deps.changed()
+  }
 
+  private async queueChange(change: QueuedChange, entry: OutboxEntry | undefined, local: LocalRecord | undefined): Promise<void> {
+    const { userId, key, kind, record, op, label } = change
     if (entry?.state === 'sending') {
       await idb.put('outbox', key, { ...entry, next: record, nextOp: op, label })
     }
@@ -79,14 +88,20 @@ export class OutboxEngine {
         baseRevision: local?.revision ?? null, attempts: 0, nextAttemptAt: 0,
       } satisfies OutboxEntry)
     }
-    this.deps.changed()
   }
 
   async savePhoto(id: string, bytes: ArrayBuffer, meta: PhotoMeta, label: string): Promise<void> {
     const userId = this.deps.userId()
     if (!userId) throw new Error('Sign in before saving')
     await idb.putPhoto(id, { bytes, type: meta.type })
-    await idb.put('outbox', `photo:${id}`, { key: `photo:${id}`, kind: 'photo', id, userId, seq: await this.nextSeq(), state: 'queued', label, photo: meta, attempts: 0, nextAttemptAt: 0 } satisfies OutboxEntry)
+    try {
+      await idb.put('outbox', `photo:${id}`, { key: `photo:${id}`, kind: 'photo', id, userId, seq: await this.nextSeq(), state: 'queued', label, photo: meta, attempts: 0, nextAttemptAt: 0 } satisfies OutboxEntry)
+    }
+    catch (error) {
+      // Out of space: bytes that nothing would ever send only take more of it.
+      await idb.remove('photos', id).catch(() => undefined)
+      throw error
+    }
     this.deps.changed()
   }
 
