@@ -28,12 +28,31 @@ export function plain<T>(value: T): T {
   return value === undefined ? value : JSON.parse(JSON.stringify(value)) as T
 }
 
+const fullListeners = new Set<() => void>()
+
+/** Calls `listener` whenever a write fails because the phone is out of space; answers how to stop. */
+export function onStorageFull(listener: () => void): () => void {
+  fullListeners.add(listener)
+  return () => fullListeners.delete(listener)
+}
+
+/** A write, with a full quota told to the listeners (the crew lead must hear of it) before it fails. */
+async function written(write: Promise<void>): Promise<void> {
+  try {
+    await write
+  }
+  catch (error) {
+    if ((error as { name?: string } | null)?.name === 'QuotaExceededError') for (const listener of fullListeners) listener()
+    throw error
+  }
+}
+
 export const idb = {
   get: <T>(name: StoreName, key: string) => get<T>(key, store(name)),
-  put: (name: StoreName, key: string, value: unknown) => set(key, value instanceof ArrayBuffer ? value : plain(value), store(name)),
-  putMany: (name: StoreName, items: [string, unknown][]) => setMany(items.map(([k, v]) => [k, plain(v)]), store(name)),
+  put: (name: StoreName, key: string, value: unknown) => written(set(key, value instanceof ArrayBuffer ? value : plain(value), store(name))),
+  putMany: (name: StoreName, items: [string, unknown][]) => written(setMany(items.map(([k, v]) => [k, plain(v)]), store(name))),
   /** For photos: the bytes are stored as they are (an ArrayBuffer is cloneable, a proxy is not). */
-  putPhoto: (key: string, photo: { bytes: ArrayBuffer, type: string }) => set(key, { bytes: photo.bytes, type: photo.type }, store('photos')),
+  putPhoto: (key: string, photo: { bytes: ArrayBuffer, type: string }) => written(set(key, { bytes: photo.bytes, type: photo.type }, store('photos'))),
   remove: (name: StoreName, key: string) => del(key, store(name)),
   removeMany: (name: StoreName, keys: string[]) => delMany(keys, store(name)),
   all: <T>(name: StoreName) => entries<string, T>(store(name)),
