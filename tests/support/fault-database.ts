@@ -2,7 +2,8 @@
 // .data/faults-mariadb, a free loopback port), which the suite stops and starts mid-run without
 // touching the database every other test uses. TAMP_FAULTS_DB=host:port[,host:port...] points it at
 // databases someone else runs instead (a cluster's nodes, one app instance per address); those are
-// never stopped by the suite.
+// stopped mid-run only through TAMP_FAULTS_DB_STOP / TAMP_FAULTS_DB_START, shell commands of their own
+// (e.g. killing one node of a cluster and bringing it back).
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process'
 import { existsSync, mkdirSync, rmSync } from 'node:fs'
 import { userInfo } from 'node:os'
@@ -37,6 +38,17 @@ function externalAddresses(): DatabaseAddress[] | undefined {
         return { host: host || '127.0.0.1', port: Number(port) }
       })
     : undefined
+}
+
+/** The commands that take an external database away and bring it back, when both are given. */
+function externalFaults(): Pick<FaultDatabase, 'stop' | 'start'> {
+  const { TAMP_FAULTS_DB_STOP: stop, TAMP_FAULTS_DB_START: start } = process.env
+  if (!stop || !start) return {}
+  const run = (command: string) => async () => {
+    const done = spawnSync('sh', ['-c', command], { stdio: 'inherit' })
+    if (done.status !== 0) throw new Error(`the fault suite's command failed (${done.status}): ${command}`)
+  }
+  return { stop: run(stop), start: run(start) }
 }
 
 function initialise(): void {
@@ -99,7 +111,7 @@ async function ownDatabase(): Promise<FaultDatabase> {
 export async function faultDatabase(name: string): Promise<FaultDatabase> {
   const external = externalAddresses()
   const target: FaultDatabase = external
-    ? { addresses: external, connect: db => knex(knexConfig({ ...dbSettings(db), ...external[0]! })), close: async () => {} }
+    ? { addresses: external, ...externalFaults(), connect: db => knex(knexConfig({ ...dbSettings(db), ...external[0]! })), close: async () => {} }
     : await ownDatabase()
   const admin = knex(knexConfig({ ...dbSettings(''), ...target.addresses[0]!, database: '' }))
   try {
