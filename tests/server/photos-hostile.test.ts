@@ -7,7 +7,7 @@ import { deflateSync } from 'node:zlib'
 import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
-import sharp from 'sharp'
+import sharp, { type Sharp } from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { fetch, url, useTestContext } from '@nuxt/test-utils/e2e'
 import { useBuiltServer } from '../support/server'
@@ -30,10 +30,9 @@ beforeAll(async () => {
   cookie = await signIn(company.lead.email)
 })
 
-const put = async (body: Uint8Array | ReadableStream<Uint8Array>, type: string, id = randomUUID()) => {
-  const response = await fetch(`/api/photos/${id}?subjectType=day_sheet&subjectId=${daySheetId}`, {
-    method: 'PUT', body, headers: { 'content-type': type, cookie }, ...(body instanceof ReadableStream ? { duplex: 'half' } : {}),
-  })
+const put = async (body: Uint8Array, type: string, id = randomUUID()) => {
+  // Copied into a plain Uint8Array: fetch's types refuse one that may sit on a SharedArrayBuffer.
+  const response = await fetch(`/api/photos/${id}?subjectType=day_sheet&subjectId=${daySheetId}`, { method: 'PUT', body: new Uint8Array(body), headers: { 'content-type': type, cookie } })
   return { id, status: response.status, message: ((await response.json().catch(() => ({}))) as { statusMessage?: string }).statusMessage }
 }
 const photoRows = async () => Number((await testDb()('photos').where({ job_id: company.jobId }).count({ n: '*' }).first())?.n)
@@ -170,7 +169,7 @@ describe('uploads that are not phone photos', () => {
 describe('where the crew stood', () => {
   it('is never kept: the stored JPEG, PNG and WebP files carry no EXIF, GPS or XMP, and no column holds a position', async () => {
     const jpeg = await phoneJpeg({ width: 640, height: 480, dateTimeOriginal: '2026:11:05 08:10:00', offsetTimeOriginal: '-05:00' })
-    const withGps = (image: sharp.Sharp) => image.withExifMerge({ IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '40/1 26/1 4600/100', GPSLongitudeRef: 'W', GPSLongitude: '79/1 58/1 5600/100' } })
+    const withGps = (image: Sharp) => image.withExifMerge({ IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '40/1 26/1 4600/100', GPSLongitudeRef: 'W', GPSLongitude: '79/1 58/1 5600/100' } })
     const png = await withGps(sharp(jpeg).png()).toBuffer()
     const webp = await withGps(sharp(jpeg).webp()).toBuffer()
     for (const [body, type] of [[jpeg, 'image/jpeg'], [png, 'image/png'], [webp, 'image/webp']] as const) {
