@@ -91,7 +91,7 @@ describe('the outbox under faults', () => {
     const sent = perLead.flat()
     const result = await tally(db, world, sent)
     const refusedStored = await db('day_sheets').whereIn('id', director.forbidden).pluck('id')
-    console.log(`fault suite: ${[...director.injected].map(([name, n]) => `${name} ×${n}`).join(', ')}; ${director.syncs} sync requests, ${director.uploads} uploads`)
+    console.log(`fault suite: ${[...director.injected].map(([name, n]) => `${name} ×${n}`).join(', ')}; ${director.syncs} sync requests, ${director.uploads} uploads; server errors ${JSON.stringify(Object.fromEntries(director.serverErrors))}`)
     if (result.details.length) console.log(result.details.slice(0, 20).join('\n'))
     console.log(`RESULT records=${result.records} lost=${result.lost} dup=${result.dup} mismatched=${result.mismatched} faults=${director.total}`)
 
@@ -99,6 +99,8 @@ describe('the outbox under faults', () => {
     expect(totalRecords).toBe(1000)
     expect({ lost: result.lost, dup: result.dup, mismatched: result.mismatched }).toEqual({ lost: 0, dup: 0, mismatched: 0 })
     expect(director.failures).toEqual([])
+    // While the database was away the server said so, and when to come back: 503 with Retry-After, never 500.
+    expect([...director.serverErrors.keys()].filter(answer => !/^503 Retry-After: \d+$/.test(answer))).toEqual([])
     expect(refusedStored).toEqual([])
     // Every fault struck at least once.
     const expected = ['answer lost after commit', 'same key twice at once', 'same key, other body', 'photo upload cut in the middle', 'photo answer lost after storing', 'server killed with SIGKILL', ...(target.stop ? ['database stopped'] : [])]

@@ -12,3 +12,12 @@ describe('health without a database', () => {
     expect(await response.json()).toMatchObject({ ok: false })
   })
 })
+
+describe('requests while the database is unreachable', () => {
+  it('tells the phone to come back later (503 with Retry-After) rather than failing with a server error', async () => {
+    const response = await fetch('/api/auth/sign-in', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'lead@fixture.test', password: 'fixture-password-1' }) })
+    expect(response.status).toBe(503)
+    expect(response.headers.get('retry-after')).toBe('10')
+    expect((await response.json()).statusMessage).toBe('The server cannot reach its database right now; what you sent is kept and will be sent again')
+  })
+})

@@ -16,6 +16,8 @@ export class FaultDirector {
   readonly injected = new Map<string, number>()
   /** What went wrong that should not have: wrong answers to a repeat, hangs. */
   readonly failures: string[] = []
+  /** Every 5xx answer, with its Retry-After: an outage must say when to come back, never look like a fault. */
+  readonly serverErrors = new Map<string, number>()
   /** Ids a refused request carried: none of them may reach the database. */
   readonly forbidden: string[] = []
   /** Called with each sync request's number as it leaves, to time the big faults. */
@@ -45,7 +47,12 @@ const requestTimeoutMs = 30_000
 
 async function send(director: FaultDirector, url: string, init: RequestInit): Promise<Response> {
   try {
-    return await fetch(url, { ...init, signal: AbortSignal.timeout(requestTimeoutMs) })
+    const response = await fetch(url, { ...init, signal: AbortSignal.timeout(requestTimeoutMs) })
+    if (response.status >= 500) {
+      const answer = `${response.status} Retry-After: ${response.headers.get('retry-after') ?? 'none'}`
+      director.serverErrors.set(answer, (director.serverErrors.get(answer) ?? 0) + 1)
+    }
+    return response
   }
   catch (error) {
     if ((error as Error).name === 'TimeoutError') director.failures.push(`${init.method} ${new URL(url).pathname} did not answer within ${requestTimeoutMs / 1000} s`)
