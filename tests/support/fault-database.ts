@@ -13,6 +13,7 @@ import knex, { type Knex } from 'knex'
 import { dataDir, dbSettings } from '../../scripts/config'
 import { freePort } from '../../scripts/run-helpers'
 import { knexConfig } from '../../knexfile'
+import { ensureDebianPackage } from '../../scripts/debian'
 
 export interface DatabaseAddress { host: string, port: number }
 
@@ -51,10 +52,10 @@ function externalFaults(): Pick<FaultDatabase, 'stop' | 'start'> {
   return { stop: run(stop), start: run(start) }
 }
 
-function initialise(): void {
+async function initialise(): Promise<void> {
   if (existsSync(resolve(datadir, 'mysql'))) return
   mkdirSync(home, { recursive: true, mode: 0o700 })
-  const made = spawnSync('mariadb-install-db', ['--no-defaults', `--datadir=${datadir}`, `--user=${userInfo().username}`, '--auth-root-authentication-method=normal', '--skip-test-db', '--skip-name-resolve'], { encoding: 'utf8' })
+  const made = spawnSync(await ensureDebianPackage('mariadb-install-db', 'mariadb-server'), ['--no-defaults', `--datadir=${datadir}`, `--user=${userInfo().username}`, '--auth-root-authentication-method=normal', '--skip-test-db', '--skip-name-resolve'], { encoding: 'utf8' })
   if (made.status !== 0) {
     rmSync(datadir, { recursive: true, force: true })
     throw new Error(`mariadb-install-db failed for the fault suite's database: ${made.stderr}`)
@@ -76,13 +77,14 @@ async function answers(address: DatabaseAddress): Promise<boolean> {
 }
 
 async function ownDatabase(): Promise<FaultDatabase> {
-  initialise()
+  await initialise()
+  const mariadbd = await ensureDebianPackage('mariadbd', 'mariadb-server')
   const address = { host: '127.0.0.1', port: await freePort() }
   let child: ChildProcess | undefined
   const start = async () => {
     // A throwaway copy on loopback only: grant tables are skipped, so the app's user and password
     // from the environment are let in without creating them. Never use these flags for real data.
-    child = spawn('/usr/sbin/mariadbd', [
+    child = spawn(mariadbd, [
       '--no-defaults', `--datadir=${datadir}`, `--socket=${resolve(home, 'm.sock')}`, `--pid-file=${resolve(home, 'm.pid')}`,
       `--port=${address.port}`, '--bind-address=127.0.0.1', '--skip-grant-tables', '--skip-name-resolve', `--log-error=${resolve(home, 'mariadb.log')}`,
       '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci', '--default-time-zone=+00:00',
