@@ -5,7 +5,7 @@
 // the phone is out of space.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { url } from '@nuxt/test-utils/e2e'
-import type { Browser, BrowserContext, CDPSession, Page } from 'playwright-core'
+import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { useBuiltServer } from '../support/server'
 import { createCompany, fixturePassword, type FixtureCompany } from '../support/fixtures'
 import { addZoneAndCrew } from '../support/daybook'
@@ -17,7 +17,6 @@ await useBuiltServer()
 let browser: Browser
 let context: BrowserContext
 let page: Page
-let cdp: CDPSession
 let company: FixtureCompany
 let zoneId: string
 let crew: string[]
@@ -123,39 +122,85 @@ describe('a week without signal, then a signal that comes and goes', () => {
 })
 
 describe('a phone out of space', () => {
-  it('tells the crew lead the photo was not saved, and saves it once there is room again', async () => {
-    await context.setOffline(true)
-    // The browser's own quota for the site, set below what it holds already: no new write fits.
-    // Chromium applies it to IndexedDB connections opened afterwards: the app is reloaded (offline) to open its own anew.
-    cdp = await context.newCDPSession(page)
-    await cdp.send('Storage.overrideQuotaForOrigin', { origin, quotaSize: 1000 })
-    await page.reload()
-    await waitForApp(page)
-    await expect.poll(count).toBe('0')
-    const sheetId = saved.day_sheet[0]!
-    const attempt = () => page.evaluate(async (id) => {
-      const root = document.querySelector('#__nuxt') as unknown as { __vue_app__: { config: { globalProperties: { $pinia: { _s: Map<string, Record<string, (...args: unknown[]) => Promise<unknown>>> } } } } }
-      const canvas = new OffscreenCanvas(2000, 1500)
-      const g = canvas.getContext('2d')!
-      const noise = g.createImageData(2000, 1500)
-      for (let i = 0; i < noise.data.length; i++) noise.data[i] = (i * 2654435761) % 251
-      g.putImageData(noise, 0, 0)
-      const file = new File([await canvas.convertToBlob({ type: 'image/jpeg', quality: 0.95 })], 'full.jpg', { type: 'image/jpeg' })
-      try {
-        await root.__vue_app__.config.globalProperties.$pinia._s.get('daybook')!.addPhotos!([file], { type: 'day_sheet', id }, 'No room for this one')
-        return 'saved'
+  it('tells the crew lead the photo that did not fit was not saved, and keeps and sends every one that did', async () => {
+    const full = await phoneContext(browser, { baseURL: url('/') })
+    try {
+      const phone = await full.newPage()
+      // The browser's own quota for the site, small enough for the app and a few photos. Chromium reads a
+      // site's quota once, when it first stores something, so it is set before the first visit.
+      await (await full.newCDPSession(phone)).send('Storage.overrideQuotaForOrigin', { origin, quotaSize: 8 * 1024 * 1024 })
+      await signInInBrowser(phone, company.lead.email, fixturePassword)
+      await phone.goto('/today')
+      await waitForApp(phone)
+      await expect.poll(() => phone.getByText('Fixture walk').count(), { timeout: 15_000 }).toBeGreaterThan(0)
+      await full.setOffline(true)
+      expect(await phone.getByTestId('storage-full').count()).toBe(0)
+      const sheetId = saved.day_sheet[0]!
+      const kept: string[] = []
+      let refused = ''
+      for (let n = 0; n < 40 && !refused; n++) {
+        const outcome = await phone.evaluate(async ({ id, n }) => {
+          const root = document.querySelector('#__nuxt') as unknown as { __vue_app__: { config: { globalProperties: { $pinia: { _s: Map<string, Record<string, (...args: unknown[]) => Promise<unknown>>> } } } } }
+          const canvas = new OffscreenCanvas(2000, 1500)
+          const g = canvas.getContext('2d')!
+          const noise = g.createImageData(2000, 1500)
+          for (let i = 0; i < noise.data.length; i++) noise.data[i] = ((i + n * 7919) * 2654435761) % 251
+          g.putImageData(noise, 0, 0)
+          const file = new File([await canvas.convertToBlob({ type: 'image/jpeg', quality: 0.95 })], `full-${n}.jpg`, { type: 'image/jpeg' })
+          try {
+            await root.__vue_app__.config.globalProperties.$pinia._s.get('daybook')!.addPhotos!([file], { type: 'day_sheet', id }, `Full phone ${n}`)
+            return 'saved'
+          }
+          catch (error) {
+            return (error as Error).name
+          }
+        }, { id: sheetId, n })
+        if (outcome === 'saved') kept.push(`Full phone ${n}`)
+        else refused = outcome
       }
-      catch (error) {
-        return (error as Error).name
-      }
-    }, sheetId)
-    expect(await attempt()).toBe('QuotaExceededError')
-    await expect(page.getByTestId('storage-full').innerText()).resolves.toContain('your last entry was NOT saved')
-    expect(await count()).toBe('0')
-    await cdp.send('Storage.overrideQuotaForOrigin', { origin })
-    await page.reload()
-    await waitForApp(page)
-    expect(await attempt()).toBe('saved')
-    await expect.poll(count).toBe('1')
+      console.log(`out of space after ${kept.length} photos`)
+      expect(refused).toBe('QuotaExceededError')
+      expect(kept.length).toBeGreaterThan(0)
+      await expect(phone.getByTestId('storage-full').innerText()).resolves.toContain('your last entry was NOT saved')
+      await expect.poll(() => phone.getByTestId('outbox-count').innerText()).toBe(String(kept.length))
+      // Back in signal, every photo that fitted arrives, once; the one that did not was never taken for saved.
+      await full.setOffline(false)
+      await expect.poll(async () => {
+        await phone.getByTestId('send-now').click({ timeout: 1000 }).catch(() => undefined)
+        return await phone.getByTestId('outbox-count').innerText()
+      }, { timeout: 60_000, interval: 1000 }).toBe('0')
+      const captions = await testDb()('photos').where({ subject_id: sheetId }).where('caption', 'like', 'Full phone %').pluck('caption')
+      expect(captions.sort()).toEqual([...kept].sort())
+    }
+    finally {
+      await full.close()
+    }
+  })
+})
+
+describe('a browser that keeps the phone\'s storage for good', () => {
+  it('is asked to, and then no warning is shown while entries wait', async () => {
+    const kept = await phoneContext(browser, { baseURL: url('/') })
+    try {
+      const phone = await kept.newPage()
+      // Chromium's durable-storage permission for this context (playwright-core has no name for it).
+      const { targetInfo } = await (await kept.newCDPSession(phone)).send('Target.getTargetInfo')
+      await (await browser.newBrowserCDPSession()).send('Browser.grantPermissions', { origin, permissions: ['durableStorage'], browserContextId: targetInfo.browserContextId })
+      await signInInBrowser(phone, company.lead.email, fixturePassword)
+      await phone.goto('/today')
+      await waitForApp(phone)
+      await kept.setOffline(true)
+      await phone.evaluate(async (jobId) => {
+        const root = document.querySelector('#__nuxt') as unknown as { __vue_app__: { config: { globalProperties: { $pinia: { _s: Map<string, Record<string, (...args: unknown[]) => Promise<unknown>>> } } } } }
+        await root.__vue_app__.config.globalProperties.$pinia._s.get('daybook')!.saveDaySheet!({ id: crypto.randomUUID(), jobId, workDate: '2026-10-20', status: 'rain_out', hoursLost: 8 })
+      }, company.jobId)
+      await expect.poll(() => phone.getByTestId('outbox-count').innerText()).toBe('1')
+      // persisted() turns true only once the page asked with persist(): the app did.
+      await expect.poll(() => phone.evaluate(() => navigator.storage.persisted())).toBe(true)
+      expect(await phone.getByTestId('storage-may-evict').count()).toBe(0)
+    }
+    finally {
+      await kept.close()
+    }
   })
 })
