@@ -16,6 +16,8 @@ import { dbSettings, photoSettings } from '../../scripts/config'
 import { createDatabase } from '../../scripts/db'
 import { connect } from '../../scripts/migrate'
 import { startServer, type RunningServer } from '../../scripts/bench/harness'
+import { useS3Bucket } from '../support/s3'
+import { phoneJpeg } from '../support/images'
 
 const scratch = mkdtempSync(join(tmpdir(), 'tamp-backup-'))
 const photosDir = join(scratch, 'photos')
@@ -24,6 +26,7 @@ const restoredDatabase = `${testDatabase}_restored`
 // The mail timer off: it would queue mail between the backup and the comparison.
 const quiet = { NUXT_REPORTS_INTERVAL_SECONDS: '0' }
 await useBuiltServer({ NUXT_PHOTOS_DIR: photosDir, ...quiet })
+const [bucket, otherBucket] = [await useS3Bucket('tamp-photos'), await useS3Bucket('tamp-photos-restored')]
 
 let company: FixtureCompany
 let lead: string
@@ -91,5 +94,23 @@ describe('a backup restored into a fresh database', () => {
     const before = await tableFacts(testDb(), testDatabase)
     await expect(restore({ db: dbSettings(testDatabase), photos: { ...photoSettings(), driver: 'fs', dir: join(scratch, 'unused') } }, folder)).rejects.toThrow(/already has tables/)
     expect(await tableFacts(testDb(), testDatabase)).toEqual(before)
+  })
+
+  it('takes the photos from an S3 bucket and puts them back into another, byte for byte', async () => {
+    const keys = [`${company.organisationId}/${photoIds[0]}/display.jpg`, `${company.organisationId}/${photoIds[0]}/thumb.jpg`]
+    const bytes = [await phoneJpeg({ width: 1600, height: 1200 }), await phoneJpeg({ width: 400, height: 300 })]
+    for (const [i, key] of keys.entries()) {
+      expect((await bucket.client.fetch(`${bucket.endpoint}/${bucket.bucket}/${key}`, { method: 'PUT', body: new Uint8Array(bytes[i]!) })).status).toBe(200)
+    }
+    const folder = join(scratch, 'backup-s3')
+    const s3Settings = (b: typeof bucket) => ({ ...photoSettings(), driver: 's3', s3Endpoint: b.endpoint, s3Bucket: b.bucket, s3AccessKeyId: 'S3RVER', s3SecretAccessKey: 'S3RVER' })
+    const manifest = await backup({ db: dbSettings(testDatabase), photos: s3Settings(bucket) }, folder)
+    expect(Object.keys(manifest.photos).sort()).toEqual(keys.map(k => k.replaceAll('/', ':')).sort())
+    await restore({ db: dbSettings(restoredDatabase), photos: s3Settings(otherBucket) }, folder, { replace: true })
+    for (const [i, key] of keys.entries()) {
+      const copy = await otherBucket.client.fetch(`${otherBucket.endpoint}/${otherBucket.bucket}/${key}`)
+      expect(copy.status).toBe(200)
+      expect(Buffer.from(await copy.arrayBuffer()).equals(bytes[i]!)).toBe(true)
+    }
   })
 })
