@@ -37,7 +37,7 @@ async function runClient(program: string, db: ConnectionSettings, args: string[]
     await new Promise<void>((done, fail) => {
       const child = spawn(binary, [`--defaults-extra-file=${options}`, ...args], { stdio: [stdio.stdin ?? 'ignore', stdio.stdout ?? 'inherit', 'pipe'] })
       let errors = ''
-      child.stderr.on('data', (chunk: Buffer) => { errors += chunk.toString() })
+      child.stderr?.on('data', (chunk: Buffer) => { errors += chunk.toString() })
       child.once('error', fail)
       child.once('exit', code => code === 0 ? done() : fail(new TampSetupError(`Tamp: ${program} failed (exit code ${code}): ${errors.trim().split('\n')[0]}`)))
     })
