@@ -77,6 +77,9 @@ function galeraArgs(node: ClusterNode): string[] {
     '--wsrep-sst-method=rsync',
     `--wsrep-sst-receive-address=127.0.0.1:${groupPort(node, 2)}`,
     '--wsrep-slave-threads=2',
+    // A node applies the others' commits a moment after they return: without this, a sign-in written
+    // through one node could be refused by the next request on another. Reads wait until the node has caught up.
+    '--wsrep-sync-wait=1',
     // Refuse what Galera cannot replicate safely: tables without a primary key, engines other than InnoDB.
     '--wsrep-mode=REQUIRED_PRIMARY_KEY,STRICT_REPLICATION',
   ]

@@ -9,12 +9,19 @@ import { createCompany, fixturePassword } from '../support/fixtures'
 import { addZoneAndCrew, dayWithWork } from '../support/daybook'
 import { startServer, signIn, type RunningServer } from '../../scripts/bench/harness'
 import { testDatabase } from '../support/server'
+import { useMailCatcher } from '../support/mail'
+import { approveDaysThrough } from '../support/day-reports'
+import { testDb } from '../support/db'
 
 const cluster = await useCluster()
+const mail = await useMailCatcher()
+// Both instances run the mail timer every second.
+const shared = { ...mail.env, NUXT_REPORTS_INTERVAL_SECONDS: '1' }
 // Instance A uses node 0, instance B node 1; node 1 is the one killed. Node 2 only replicates.
 const instances: RunningServer[] = []
 afterAll(async () => {
   await Promise.all(instances.map(s => s.stop()))
+  await mail.stop()
 })
 
 interface Crew { cookie: string, sheetId: string, drops: string[] }
@@ -24,7 +31,7 @@ const batchesPerCrew = 24
 const dropsPerBatch = 5
 
 beforeAll(async () => {
-  instances.push(await startServer(testDatabase, cluster.serverEnv(0)), await startServer(testDatabase, cluster.serverEnv(1)))
+  instances.push(await startServer(testDatabase, cluster.serverEnv(0, shared)), await startServer(testDatabase, cluster.serverEnv(1, shared)))
   for (let i = 0; i < crewCount; i++) {
     const company = await createCompany(`Cluster Pavers ${i + 1}`)
     const { zoneId, crew } = await addZoneAndCrew(company.organisationId, company.jobId)
@@ -111,6 +118,13 @@ describe('two instances on a three-node Galera cluster', () => {
     }
     console.log(`certification conflicts during the same-key pairs: ${(await certificationFailures()) - conflictsBefore}`)
   })
+
+  it('mail each approved day\'s report exactly once though the instances\' timers claim them on different nodes', async () => {
+    const yard = await createCompany('Cluster Reports')
+    const dates = await approveDaysThrough(instances.map(s => s.url), testDb(), yard)
+    for (const date of dates) expect(mail.messagesTo(yard.office.email, new RegExp(`^Day report: Fixture walk, ${date}$`))).toHaveLength(1)
+    expect(mail.messagesTo(yard.office.email, /^Day report/)).toHaveLength(dates.length)
+  }, 90_000)
 })
 
 async function certificationFailures(): Promise<number> {

@@ -11,7 +11,7 @@ import { testDb } from '../support/db'
 import { startServer, type RunningServer } from '../../scripts/bench/harness'
 import { useMailCatcher } from '../support/mail'
 import { useS3Bucket } from '../support/s3'
-import { addZoneAndCrew, dayWithWork } from '../support/daybook'
+import { approveDaysThrough } from '../support/day-reports'
 import { phoneJpeg } from '../support/images'
 
 const mail = await useMailCatcher()
@@ -69,29 +69,7 @@ describe('two app instances on one database', () => {
 
   it('mail each approved day\'s report to the office exactly once, though both instances\' mail timers run', async () => {
     const yard = await createCompany('Two Yards Reports')
-    const { zoneId, crew } = await addZoneAndCrew(yard.organisationId, yard.jobId)
-    const cookies = await Promise.all([a, b].map(async base => sessionCookieOf(await post(base, '/api/auth/sign-in', { email: yard.lead.email, password: fixturePassword }))))
-    const foremen = await Promise.all([a, b].map(async base => sessionCookieOf(await post(base, '/api/auth/sign-in', { email: yard.foreman.email, password: fixturePassword }))))
-    const dates = Array.from({ length: 8 }, (_, i) => `2026-11-${String(9 + i).padStart(2, '0')}`)
-    const sheets: string[] = []
-    for (const [i, date] of dates.entries()) {
-      const day = dayWithWork(yard.jobId, zoneId, crew, date)
-      expect((await post([a, b][i % 2]!, '/api/sync', { changes: day.changes }, { 'cookie': cookies[i % 2]!, 'idempotency-key': randomUUID() })).status).toBe(200)
-      sheets.push(day.sheetId)
-    }
-    // The foreman approves them through both instances, as the proxy hands his requests out.
-    for (const [i, sheetId] of sheets.entries()) {
-      expect((await post([a, b][i % 2]!, `/api/days/${sheetId}/approve`, { note: 'Checked' }, { cookie: foremen[i % 2]! })).status).toBe(200)
-    }
-    const unsent = async () => Number((await testDb()('mail_outbox').whereIn('day_sheet_id', sheets).whereNull('sent_at').count({ n: '*' }).first())?.n)
-    const queued = async () => Number((await testDb()('mail_outbox').whereIn('day_sheet_id', sheets).count({ n: '*' }).first())?.n)
-    const deadline = Date.now() + 40_000
-    while ((await queued()) < sheets.length || (await unsent()) > 0) {
-      if (Date.now() > deadline) throw new Error('the day reports were not all sent')
-      await new Promise(r => setTimeout(r, 200))
-    }
-    // A few more ticks of both timers: a second copy would arrive now.
-    await new Promise(r => setTimeout(r, 3000))
+    const dates = await approveDaysThrough([a, b], testDb(), yard, { 'x-forwarded-for': '198.51.100.7' })
     for (const date of dates) expect(mail.messagesTo(yard.office.email, new RegExp(`^Day report: Fixture walk, ${date}$`))).toHaveLength(1)
     expect(mail.messagesTo(yard.office.email, /^Day report/)).toHaveLength(dates.length)
   }, 90_000)
