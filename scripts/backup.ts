@@ -18,8 +18,8 @@ import { createStorage, type Storage } from 'unstorage'
 import fsDriver from 'unstorage/drivers/fs-lite'
 import type { ConnectionSettings } from '../db/connection'
 import { photoDriver, type PhotoStoreSettings } from '../server/utils/photo-driver'
-import { dataDir, dbSettings, mariadbPaths, photoSettings } from './config'
-import { createDatabase } from './db'
+import { dataDir, dbSettings, photoSettings } from './config'
+import { createDatabase, databaseServerStatus } from './db'
 import { ensureDebianPackage, TampSetupError } from './debian'
 import { connect } from './migrate'
 import { failInOneLine } from './run-helpers'
@@ -97,7 +97,10 @@ export async function restore({ db, photos }: Where, folder: string, { replace =
   if (!existsSync(manifestFile)) throw new TampSetupError(`Tamp: ${folder} is not a Tamp backup (no manifest.json)`)
   const manifest = JSON.parse(readFileSync(manifestFile, 'utf8')) as Manifest
   // On the private server the database is made here (dropped first with --replace); elsewhere it must exist.
-  if (existsSync(mariadbPaths.socket)) await createDatabase(db.database, { fresh: replace })
+  const local = await databaseServerStatus()
+  const onPrivateServer = local.running && local.port === db.port && ['127.0.0.1', 'localhost'].includes(db.host)
+  if (onPrivateServer) await createDatabase(db.database, { fresh: replace })
+  else if (replace) throw new TampSetupError(`Tamp: --replace works on the private database server only; empty ${db.database} on ${db.host}:${db.port} yourself`)
   const present = Object.keys(await tableRows(db))
   if (present.length) throw new TampSetupError(`Tamp: the database ${db.database} already has tables (${present.length}); restore into an empty one, or pass --replace`)
   const sql = openSync(join(folder, 'database.sql'), 'r')
