@@ -55,6 +55,19 @@ export function sessionPassword(): string {
   return readFileSync(file, 'utf8').trim()
 }
 
+/** Where photos are kept, from the same variables the server reads (NUXT_PHOTOS_*). */
+export function photoSettings() {
+  return {
+    driver: env.NUXT_PHOTOS_DRIVER || 'fs',
+    dir: env.NUXT_PHOTOS_DIR || resolve(dataDir, 'photos'),
+    s3Endpoint: env.NUXT_PHOTOS_S3_ENDPOINT || '',
+    s3Region: env.NUXT_PHOTOS_S3_REGION || 'us-east-1',
+    s3Bucket: env.NUXT_PHOTOS_S3_BUCKET || '',
+    s3AccessKeyId: env.NUXT_PHOTOS_S3_ACCESS_KEY_ID || '',
+    s3SecretAccessKey: env.NUXT_PHOTOS_S3_SECRET_ACCESS_KEY || '',
+  }
+}
+
 /** The environment the built server needs, for a given database. */
 export function serverEnv(database: string, extra: Record<string, string> = {}): Record<string, string> {
   const db = dbSettings(database)
@@ -67,7 +80,7 @@ export function serverEnv(database: string, extra: Record<string, string> = {}):
     NUXT_SESSION_PASSWORD: sessionPassword(),
     NUXT_MAIL_SMTP_HOST: mailSettings.smtpHost,
     NUXT_MAIL_SMTP_PORT: String(mailSettings.smtpPort),
-    NUXT_PHOTOS_DIR: env.NUXT_PHOTOS_DIR || resolve(dataDir, 'photos'),
+    NUXT_PHOTOS_DIR: photoSettings().dir,
     // glibc's per-thread malloc arenas make sharp's memory grow without bound (sharp's install docs).
     MALLOC_ARENA_MAX: env.MALLOC_ARENA_MAX || '2',
     ...extra,

@@ -1,14 +1,16 @@
 // Migrations run from the scripts (start, test), never from the server at boot.
 import knex, { type Knex } from 'knex'
 import { knexConfig } from '../knexfile'
+import type { ConnectionSettings } from '../db/connection'
 import { dbSettings } from './config'
 
-export function connect(database: string): Knex {
-  return knex(knexConfig(dbSettings(database)))
+/** `settings`: another server than NUXT_DB_HOST:NUXT_DB_PORT (a cluster node, a restore target). */
+export function connect(database: string, settings: ConnectionSettings = dbSettings(database)): Knex {
+  return knex(knexConfig(settings))
 }
 
-export async function migrateLatest(database: string): Promise<void> {
-  const db = connect(database)
+export async function migrateLatest(database: string, settings?: ConnectionSettings): Promise<void> {
+  const db = connect(database, settings)
   try {
     await db.migrate.latest()
   }

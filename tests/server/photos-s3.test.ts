@@ -1,40 +1,17 @@
 // Photos kept in an S3-compatible bucket (production), against s3rver, a local S3 fake, on a free port.
 import { randomUUID } from 'node:crypto'
-import { mkdtempSync, rmSync } from 'node:fs'
-import { createRequire } from 'node:module'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
-import { AwsClient } from 'aws4fetch'
 import sharp from 'sharp'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import { fetch } from '@nuxt/test-utils/e2e'
 import { useBuiltServer } from '../support/server'
 import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { signIn } from '../support/http'
 import { testDb } from '../support/db'
 import { phoneJpeg } from '../support/images'
+import { useS3Bucket } from '../support/s3'
 
-// s3rver ships without types: only what this file uses.
-interface S3rverServer { run(): Promise<{ port: number }>, close(): Promise<void> }
-const S3rver = createRequire(import.meta.url)('s3rver') as new (options: object) => S3rverServer
-
-const bucket = 'tamp-photos'
-const directory = mkdtempSync(join(tmpdir(), 'tamp-s3rver-'))
-const s3 = new S3rver({ port: 0, address: '127.0.0.1', directory, silent: true, configureBuckets: [{ name: bucket }] })
-const endpoint = `http://127.0.0.1:${(await s3.run()).port}`
-afterAll(async () => {
-  await s3.close()
-  rmSync(directory, { recursive: true, force: true })
-})
-
-await useBuiltServer({
-  NUXT_PHOTOS_DRIVER: 's3',
-  NUXT_PHOTOS_S3_ENDPOINT: endpoint,
-  NUXT_PHOTOS_S3_BUCKET: bucket,
-  NUXT_PHOTOS_S3_REGION: 'us-east-1',
-  NUXT_PHOTOS_S3_ACCESS_KEY_ID: 'S3RVER',
-  NUXT_PHOTOS_S3_SECRET_ACCESS_KEY: 'S3RVER',
-})
+const { endpoint, bucket, env, client } = await useS3Bucket()
+await useBuiltServer(env)
 
 let company: FixtureCompany
 const daySheetId = randomUUID()
@@ -58,7 +35,6 @@ describe('photos in an S3 bucket', () => {
     expect(await sharp(bytes).metadata()).toMatchObject({ format: 'jpeg', width: 1200, height: 1600 })
 
     // Read the bucket directly, as another S3 client would: the ':' of the storage keys are '/' there.
-    const client = new AwsClient({ accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER', region: 'us-east-1', service: 's3' })
     const display = await client.fetch(`${endpoint}/${bucket}/${company.organisationId}/${id}/display.jpg`)
     expect(display.status).toBe(200)
     expect(Buffer.from(await display.arrayBuffer()).equals(bytes)).toBe(true)

@@ -1,5 +1,6 @@
 // Two app instances on one database, as a larger company runs Tamp behind a proxy: a sign-in, its
-// end, the sign-in throttle and a sync batch's exactly-once hold across both.
+// end, the sign-in throttle, a sync batch's exactly-once and the day reports' mail hold across both,
+// and photos live in one S3 bucket that both read.
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { url } from '@nuxt/test-utils/e2e'
@@ -8,8 +9,16 @@ import { createCompany, fixturePassword, type FixtureCompany } from '../support/
 import { sessionCookieOf } from '../support/http'
 import { testDb } from '../support/db'
 import { startServer, type RunningServer } from '../../scripts/bench/harness'
+import { useMailCatcher } from '../support/mail'
+import { useS3Bucket } from '../support/s3'
+import { approveDaysThrough } from '../support/day-reports'
+import { phoneJpeg } from '../support/images'
 
-await useBuiltServer({ NUXT_TRUST_PROXY: 'true' })
+const mail = await useMailCatcher()
+const bucket = await useS3Bucket()
+// Both instances run the mail timer every second, and keep photos in the same bucket.
+const shared = { NUXT_TRUST_PROXY: 'true', NUXT_REPORTS_INTERVAL_SECONDS: '1', ...mail.env, ...bucket.env }
+await useBuiltServer(shared)
 
 let company: FixtureCompany
 let a = ''
@@ -18,11 +27,12 @@ let b = ''
 beforeAll(async () => {
   company = await createCompany('Two Yards Masonry')
   a = url('/').replace(/\/$/, '')
-  second = await startServer(testDatabase, { NUXT_TRUST_PROXY: 'true' })
+  second = await startServer(testDatabase, shared)
   b = second.url
 })
 afterAll(async () => {
   await second?.stop()
+  await mail.stop()
 })
 
 let address = 0
@@ -55,5 +65,31 @@ describe('two app instances on one database', () => {
     expect([fromA!.status, fromB!.status]).toEqual([200, 200])
     expect(await fromA!.json()).toEqual(await fromB!.json())
     expect(await testDb()('day_sheets').where({ id: sheetId })).toHaveLength(1)
+  })
+
+  it('mail each approved day\'s report to the office exactly once, though both instances\' mail timers run', async () => {
+    const yard = await createCompany('Two Yards Reports')
+    const dates = await approveDaysThrough([a, b], testDb(), yard, { 'x-forwarded-for': '198.51.100.7' })
+    for (const date of dates) expect(mail.messagesTo(yard.office.email, new RegExp(`^Day report: Fixture walk, ${date}$`))).toHaveLength(1)
+    expect(mail.messagesTo(yard.office.email, /^Day report/)).toHaveLength(dates.length)
+  }, 90_000)
+
+  it('show a photo uploaded through one instance from the other, byte for byte, from the shared bucket', async () => {
+    const cookie = sessionCookieOf(await post(a, '/api/auth/sign-in', { email: company.lead.email, password: fixturePassword }))
+    const sheetId = randomUUID()
+    await testDb()('day_sheets').insert({ id: sheetId, job_id: company.jobId, work_date: '2026-11-19', status: 'full_day' })
+    const id = randomUUID()
+    const upload = await fetch(`${a}/api/photos/${id}?subjectType=day_sheet&subjectId=${sheetId}`, {
+      method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 1600, height: 1200 })), headers: { 'content-type': 'image/jpeg', cookie },
+    })
+    expect(upload.status).toBe(201)
+    for (const size of ['display', 'thumb']) {
+      const [fromA, fromB] = await Promise.all([a, b].map(async base => await fetch(`${base}/api/photos/${id}/${size}`, { headers: { cookie } })))
+      expect([fromA!.status, fromB!.status]).toEqual([200, 200])
+      const bytes = Buffer.from(await fromB!.arrayBuffer())
+      expect(bytes.equals(Buffer.from(await fromA!.arrayBuffer()))).toBe(true)
+      const inBucket = await bucket.client.fetch(`${bucket.endpoint}/${bucket.bucket}/${company.organisationId}/${id}/${size}.jpg`)
+      expect(Buffer.from(await inBucket.arrayBuffer()).equals(bytes)).toBe(true)
+    }
   })
 })
