@@ -11,18 +11,19 @@ async function rowsOf<T>(statement: Statement): Promise<T[]> {
 
 /**
  * The rollup of a job, or 404 when the member may not see it. The access rule (visibleJobs) is part
- * of the totals statement rather than a query before it: one round trip fewer, and nothing is
- * answered unless the totals come back.
+ * of the totals statement rather than a query before it, and nothing is answered unless the totals
+ * come back. The zones, materials and series do not depend on who asks: they are read while the
+ * membership is confirmed (`member`, the route's requireMember), so that the membership's round
+ * trip is not added to theirs; they are dropped unread when it or the totals refuse.
  */
-export async function jobRollupFor(member: Member, jobId: string): Promise<JobRollup> {
-  const visible = visibleJobs(member).andWhere('jobs.id', jobId).select('jobs.id').toSQL().toNative()
-  const statements = rollupStatements(jobId, { sql: visible.sql, bindings: visible.bindings as (string | number)[] })
-  const [totals, zones, materials, series] = await Promise.all([
-    rowsOf<RollupTotals>(statements.totals),
-    rowsOf<RollupZone>(statements.zones),
-    rowsOf<RollupMaterial>(statements.materials),
-    rowsOf<RollupPoint>(statements.series),
-  ])
+export async function jobRollupFor(member: Promise<Member>, jobId: string): Promise<JobRollup> {
+  const parts = rollupStatements(jobId)
+  const details = Promise.all([rowsOf<RollupZone>(parts.zones), rowsOf<RollupMaterial>(parts.materials), rowsOf<RollupPoint>(parts.series)])
+  // Awaited only after the membership and the totals; a failure before then must not go unhandled.
+  details.catch(() => {})
+  const visible = visibleJobs(await member).andWhere('jobs.id', jobId).select('jobs.id').toSQL().toNative()
+  const [totals] = await Promise.all([rowsOf<RollupTotals>(rollupStatements(jobId, { sql: visible.sql, bindings: visible.bindings as (string | number)[] }).totals), details])
   if (!totals[0]) throw createError({ statusCode: 404, statusMessage: 'No such job' })
+  const [zones, materials, series] = await details
   return { jobId, totals: totals[0], zones, materials, series }
 }
