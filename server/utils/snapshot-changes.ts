@@ -5,60 +5,16 @@
 // of shared/utils/snapshot-lists.ts: the diff knows no kind of record by name.
 import { createHash } from 'node:crypto'
 import type { Member } from './members'
-import type { Snapshot } from '../../shared/types/snapshot'
 import type { SnapshotQuery } from '../../shared/schemas/snapshot'
-import { snapshotListNames, snapshotLists, type FullSnapshot, type SnapshotChanges, type SnapshotListName } from '../../shared/utils/snapshot-lists'
-
-/** Per list: item id (or `*` for a list sent whole) to the fingerprint of its content. */
-type Manifest = Partial<Record<SnapshotListName, Record<string, string>>>
-type Item = { id: string }
+import type { FullSnapshot, SnapshotChanges } from '../../shared/utils/snapshot-lists'
+import { changesBetween, manifestOf, type Manifest } from './snapshot-diff'
 
 /** Bases kept per sign-in: a phone whose base was dropped gets a full snapshot, nothing worse. */
 const keptPerSession = 4
 
-const fingerprint = (value: unknown) => createHash('sha1').update(JSON.stringify(value)).digest('base64url').slice(0, 12)
-
-export function manifestOf(snapshot: Snapshot): Manifest {
-  const manifest: Manifest = {}
-  for (const list of snapshotListNames) {
-    const items = snapshot[list] as Item[]
-    manifest[list] = 'whole' in snapshotLists[list] ? { '*': fingerprint(items) } : Object.fromEntries(items.map(item => [item.id, fingerprint(item)]))
-  }
-  return manifest
-}
-
 /** The same content for the same sign-in always gets the same cursor, so an unchanged refresh finds its own. */
 function cursorOf(member: Member, manifest: Manifest): string {
   return createHash('sha256').update(member.sessionId).update(JSON.stringify(manifest)).digest('base64url').slice(0, 32)
-}
-
-/** What changed between a base and now; records the phone skipped (`stale`) count as changed whatever their fingerprint. */
-export function changesBetween(base: Manifest, now: Manifest, snapshot: Snapshot, stale: string[]): Pick<SnapshotChanges, 'changed' | 'removed'> {
-  const staleIds = new Map<string, Set<string>>()
-  for (const key of stale) {
-    const [kind, id] = key.split(':') as [string, string]
-    const list = snapshotListNames.find(name => 'kind' in snapshotLists[name] && snapshotLists[name].kind === kind)
-    if (list) staleIds.set(list, (staleIds.get(list) ?? new Set()).add(id))
-  }
-  const changed: Record<string, unknown[]> = {}
-  const removed: Record<string, string[]> = {}
-  for (const list of snapshotListNames) {
-    const before = base[list] ?? {}
-    const after = now[list] ?? {}
-    const forced = staleIds.get(list) ?? new Set<string>()
-    const items = snapshot[list] as Item[]
-    if ('whole' in snapshotLists[list]) {
-      // Sent whole, even when it is now empty (the last open flag resolved).
-      if (before['*'] !== after['*']) changed[list] = items
-      continue
-    }
-    const differing = items.filter(item => forced.has(item.id) || before[item.id] !== after[item.id])
-    const gone = Object.keys(before).filter(id => !(id in after))
-    for (const id of forced) if (!(id in after) && !gone.includes(id)) gone.push(id)
-    if (differing.length) changed[list] = differing
-    if (gone.length) removed[list] = gone
-  }
-  return { changed, removed } as Pick<SnapshotChanges, 'changed' | 'removed'>
 }
 
 async function keepBase(member: Member, cursor: string, manifest: Manifest): Promise<void> {

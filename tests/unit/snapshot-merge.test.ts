@@ -3,7 +3,7 @@
 // phone holding what a full snapshot would have given it, and never touch a record still waiting.
 import 'fake-indexeddb/auto'
 import { beforeEach, describe, expect, it } from 'vitest'
-import { changesBetween, manifestOf } from '../../server/utils/snapshot-changes'
+import { changesBetween, manifestOf } from '../../server/utils/snapshot-diff'
 import { idb } from '../../app/utils/idb'
 import { mergeSnapshot, type RefreshState, type SnapshotMeta } from '../../app/utils/snapshot-merge'
 import type { LocalRecord } from '../../app/utils/outbox-types'
