@@ -6,6 +6,7 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { launch } from 'chrome-launcher'
 import lighthouse from 'lighthouse'
+import { chromium } from 'playwright-core'
 import { createStorage } from 'unstorage'
 import fsDriver from 'unstorage/drivers/fs'
 import { seedDemo } from '../../db/seeds/demo'
@@ -54,11 +55,28 @@ async function main(): Promise<void> {
       { key: 'jobs', path: '/jobs', role: 'office' },
     ]
     const results = new Map<string, Figures>()
+    // A cookie in Lighthouse's extraHeaders did not reach the page's own navigation here (every signed-in
+    // page came back as a redirect to /sign-in), so each run starts as Lighthouse's storage reset would
+    // (no cookies, storage or HTTP cache for the origin) and the sign-in is put in the browser's cookie jar.
+    const browser = await chromium.connectOverCDP(`http://127.0.0.1:${chrome.port}`)
+    const context = browser.contexts()[0]
+    if (!context) throw new Error('the browser for Lighthouse has no context')
     for (const page of pages) {
-      const extraHeaders = page.role ? { cookie: cookies.get(page.role) ?? '' } : undefined
+      const blank = await context.newPage()
+      const session = await context.newCDPSession(blank)
+      await session.send('Network.clearBrowserCache')
+      await session.send('Storage.clearDataForOrigin', { origin: server.url, storageTypes: 'all' })
+      await blank.close()
+      await context.clearCookies()
+      const cookie = page.role ? cookies.get(page.role) : undefined
+      if (cookie) {
+        const [name = '', value = ''] = cookie.split(/=(.*)/s)
+        await context.addCookies([{ name, value, url: server.url, httpOnly: true, sameSite: 'Lax' }])
+      }
       const run = await lighthouse(`${server.url}${page.path}`, {
-        port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility'], extraHeaders,
+        port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility'], disableStorageReset: true,
       })
+      if (run?.lhr.finalDisplayedUrl && !run.lhr.finalDisplayedUrl.endsWith(page.path)) throw new Error(`${page.path} ended at ${run.lhr.finalDisplayedUrl}: the sign-in did not hold`)
       if (!run) throw new Error(`Lighthouse gave no result for ${page.path}`)
       const { categories, audits } = run.lhr
       const figures = {
@@ -67,8 +85,10 @@ async function main(): Promise<void> {
         lcpMs: Math.round(audits['largest-contentful-paint']?.numericValue ?? 0),
       }
       results.set(page.key, figures)
+      const chain = (audits.redirects?.details as { items?: { url: string }[] } | undefined)?.items?.map(item => item.url.replace(server.url, '')) ?? []
+      if (chain.length > 1) console.log(`${page.key}: redirected ${chain.join(' → ')}`)
       const failing = Object.values(audits).filter(a => a.score !== null && a.score < 0.9 && a.scoreDisplayMode !== 'informative' && a.scoreDisplayMode !== 'manual')
-        .map(a => a.id)
+        .map(a => a.displayValue ? `${a.id} (${a.displayValue})` : a.id)
       console.log(`${page.key} ${page.path}: performance ${figures.performance}, accessibility ${figures.accessibility}, LCP ${figures.lcpMs} ms, FCP ${Math.round(audits['first-contentful-paint']?.numericValue ?? 0)} ms, TBT ${Math.round(audits['total-blocking-time']?.numericValue ?? 0)} ms${failing.length ? `; below 90: ${failing.join(', ')}` : ''}`)
     }
     const perf = [...results.values()].map(r => r.performance)
@@ -77,6 +97,7 @@ async function main(): Promise<void> {
     console.log(`RESULT signin=${score('signin')} today=${score('today')} day=${score('day')} review=${score('review')} jobs=${score('jobs')} min_perf=${Math.min(...perf)} min_a11y=${Math.min(...a11y)} today_lcp_ms=${results.get('today')?.lcpMs ?? 0}`)
   }
   finally {
+    // The CDP connection goes with the browser.
     chrome.kill()
     await server.stop()
     rmSync(photosDir, { recursive: true, force: true })

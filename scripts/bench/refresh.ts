@@ -47,16 +47,18 @@ async function main(): Promise<void> {
     const path = `${server.url}/api/daybook/snapshot`
     const full = await get(path, cookie)
     if (full.status !== 200) throw new Error(`the snapshot answered ${full.status}`)
-    const snapshot = JSON.parse(full.body) as { cursor: string, daySheets: unknown[], timeEntries: { id: string, daySheetId: string, crewMemberId: string, hours: number, revision: number }[] }
+    const snapshot = JSON.parse(full.body) as { cursor: string, daySheets: { id: string, reviewState: string }[], timeEntries: { id: string, daySheetId: string, crewMemberId: string, hours: number, revision: number }[] }
     const unchanged = await get(`${path}?since=${snapshot.cursor}`, cookie)
-    // One changed record: the crew lead corrects one person's hours on one day.
-    const entry = snapshot.timeEntries[0]!
+    // One changed record: the crew lead corrects one person's hours on a day still waiting for the foreman.
+    const waiting = new Set(snapshot.daySheets.filter(s => s.reviewState === 'waiting').map(s => s.id))
+    const entry = snapshot.timeEntries.find(e => e.hours >= 1 && waiting.has(e.daySheetId))!
     const { revision, ...record } = entry
     const sent = await fetch(`${server.url}/api/sync`, {
       method: 'POST', headers: { 'content-type': 'application/json', cookie, 'idempotency-key': crypto.randomUUID() },
       body: JSON.stringify({ changes: [{ kind: 'time_entry', op: 'upsert', baseRevision: revision, record: { ...record, hours: record.hours - 0.5 } }] }),
     })
-    if (!sent.ok) throw new Error(`the sync of one changed record answered ${sent.status}`)
+    const applied = await sent.json() as { results?: { status: string }[] }
+    if (!sent.ok || applied.results?.[0]?.status !== 'applied') throw new Error(`the sync of one changed record answered ${sent.status} ${JSON.stringify(applied)}`)
     const oneChange = await get(`${path}?since=${snapshot.cursor}`, cookie)
     const changed = JSON.parse(oneChange.body) as { changed: Record<string, unknown[]> }
     const line = (name: string, wire: Wire) => console.log(`${name}: ${wire.status}, body ${wire.bodyBytes} B on the wire, headers ${wire.headerBytes} B`)
