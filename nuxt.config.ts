@@ -116,10 +116,18 @@ export default defineNuxtConfig({
     defaultLocale: 'en',
     strategy: 'no_prefix',
     detectBrowserLanguage: { useCookie: true, cookieKey: 'tamp_locale', fallbackLocale: 'en', redirectOn: 'no prefix' },
+    // No <i18n-t> and friends in any template: vue-i18n's global components stay out of the bundle.
+    // (dropMessageCompiler would save 6 KB more but the server then fails to render the compiled
+    // messages: "unhandled node type: 0".)
+    bundle: { fullInstall: false },
   },
   // The prerendered /shell would otherwise get a payload file with `data: undefined` that Nuxt copies
   // over every page's data (see nuxt/nuxt#34865): no payload extraction, /shell is the only prerender.
-  experimental: { payloadExtraction: false },
+  // No app manifest: nothing on the phone reads client-side route rules, and it costs a request and
+  // its code on every first load (the service worker's own update check tells of a new build).
+  experimental: { payloadExtraction: false, appManifest: false },
+  // Every component is written with <script setup>: Vue's Options API is left out of the bundle.
+  vite: { define: { __VUE_OPTIONS_API__: 'false' } },
   routeRules: {
     // A page shell rendered without data, precached by the service worker and answered for every
     // navigation offline (SSR pages cannot be precached: see ../shared/STACK.md).

@@ -2,10 +2,11 @@
 // Screens read from here and save through here; nothing waits for the network.
 import { skipHydrate } from 'pinia'
 import type { DaySheetRecord, FlagAnswerRecord, LiftRecord, MaterialDropRecord, MaterialEstimateRecord, RecordKind, SyncKind, TimeEntryRecord, ZoneRecord } from '~~/shared/schemas/daybook'
-import type { Snapshot, SnapshotFlag } from '~~/shared/types/snapshot'
+import type { SnapshotFlag } from '~~/shared/types/snapshot'
+import { maxStaleKeys, type SnapshotAnswer } from '~~/shared/utils/snapshot-lists'
 import { askPersistentStorage, idb } from '~/utils/idb'
 import type { LocalRecord, OutboxEntry } from '~/utils/outbox-types'
-import { mergeSnapshot, type SnapshotMeta } from '~/utils/snapshot-merge'
+import { mergeSnapshot, type RefreshState, type SnapshotMeta } from '~/utils/snapshot-merge'
 import { shrinkPhoto } from '~/utils/photo-shrink'
 
 export type RecordState = 'on_phone' | 'sending' | 'saved' | 'attention'
@@ -33,8 +34,13 @@ export const useDaybookStore = defineStore('daybook', () => {
   async function refreshFromServer(): Promise<void> {
     if (!navigator.onLine) return
     try {
-      const snapshot = await $fetch<Snapshot>('/api/daybook/snapshot')
-      await mergeSnapshot(snapshot, new Set(outbox.entries.map(e => e.key)))
+      // Changes only, from where the phone's copy stands (a full snapshot the first time, or when the
+      // server no longer has that base); 304 when nothing changed.
+      const since = await idb.get<RefreshState>('meta', 'refresh')
+      const query = since && since.stale.length <= maxStaleKeys ? { since: since.cursor, ...(since.stale.length ? { stale: since.stale.join(',') } : {}) } : {}
+      const response = await $fetch.raw<SnapshotAnswer>('/api/daybook/snapshot', { query })
+      if (response.status === 304 || !response._data) return
+      await mergeSnapshot(response._data, new Set(outbox.entries.map(e => e.key)))
       await reloadRecords()
     }
     catch { /* offline or signed out: the phone's copy stands */ }

@@ -21,7 +21,9 @@ export async function measureTodayJs(url: string, email: string, password: strin
     page.on('request', (request) => {
       if (!loaded && request.resourceType() === 'script') scripts.push(request)
     })
-    await page.goto(`${url}/today`, { waitUntil: 'load' })
+    const answer = await page.goto(`${url}/today`, { waitUntil: 'load' })
+    // An error page weighs less than Today: measure only the page itself.
+    if (answer?.status() !== 200) throw new Error(`Today answered ${answer?.status()} for the JS measure`)
     await page.waitForLoadState('networkidle')
     let bytes = 0
     for (const request of scripts) {

@@ -211,3 +211,23 @@ describe('who may see a job\'s rollup', () => {
     }
   })
 })
+
+describe('who may read a job\'s rollup, as the database says now', () => {
+  it('follows a role changed after signing in: a foreman made office sees another foreman\'s job, one made crew lead sees none', async () => {
+    const cookie = await signIn(company.otherForeman.email)
+    // The fixture job is the first foreman's: refused to the other one as they signed in.
+    expect((await call('GET', `/api/jobs/${company.jobId}/rollup`, { cookie })).status).toBe(404)
+    const membership = testDb()('memberships').where({ id: company.otherForeman.membershipId })
+    try {
+      await membership.clone().update({ role: 'office' })
+      const asOffice = await call('GET', `/api/jobs/${company.jobId}/rollup`, { cookie })
+      expect(asOffice.status).toBe(200)
+      expect(((await asOffice.json()) as JobRollup).jobId).toBe(company.jobId)
+      await membership.clone().update({ role: 'crew_lead' })
+      expect((await call('GET', `/api/jobs/${company.jobId}/rollup`, { cookie })).status).toBe(403)
+    }
+    finally {
+      await membership.clone().update({ role: 'foreman' })
+    }
+  })
+})
