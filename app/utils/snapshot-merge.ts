@@ -4,9 +4,9 @@ import type { Snapshot } from '~~/shared/types/snapshot'
 import { idb } from './idb'
 import type { LocalRecord } from './outbox-types'
 
-type RecordLists = 'zoneRecords' | 'materialEstimates' | 'daySheets' | 'timeEntries' | 'materialDrops' | 'lifts' | 'flagAnswers'
+type RecordLists = 'zoneRecords' | 'materialEstimates' | 'daySheets' | 'timeEntries' | 'materialDrops' | 'lifts' | 'flagAnswers' | 'zoneQuantities'
 const lists: [SyncKind, RecordLists][] = [
-  ['zone', 'zoneRecords'], ['material_estimate', 'materialEstimates'], ['day_sheet', 'daySheets'], ['time_entry', 'timeEntries'], ['material_drop', 'materialDrops'], ['lift', 'lifts'], ['flag_answer', 'flagAnswers'],
+  ['zone', 'zoneRecords'], ['material_estimate', 'materialEstimates'], ['day_sheet', 'daySheets'], ['time_entry', 'timeEntries'], ['material_drop', 'materialDrops'], ['lift', 'lifts'], ['flag_answer', 'flagAnswers'], ['zone_quantity', 'zoneQuantities'],
 ]
 
 export async function mergeSnapshot(snapshot: Snapshot, waiting: Set<string>): Promise<void> {
@@ -22,7 +22,7 @@ export async function mergeSnapshot(snapshot: Snapshot, waiting: Set<string>): P
   const gone = local.filter(([key, r]) => r.revision !== null && !fromServer.has(key) && !waiting.has(key)).map(([key]) => key)
   await idb.removeMany('records', gone)
   await idb.putMany('records', [...fromServer].filter(([key]) => !waiting.has(key)))
-  const { zoneRecords: _z, materialEstimates: _e, daySheets: _s, timeEntries: _t, materialDrops: _d, lifts: _l, flagAnswers: _a, ...rest } = snapshot
+  const { zoneRecords: _z, materialEstimates: _e, daySheets: _s, timeEntries: _t, materialDrops: _d, lifts: _l, flagAnswers: _a, zoneQuantities: _q, ...rest } = snapshot
   await idb.put('meta', 'snapshot', rest)
 }
 
