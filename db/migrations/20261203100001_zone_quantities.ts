@@ -26,9 +26,16 @@ export async function up(knex: Knex): Promise<void> {
     t.index(['zone_id'])
   })
   await knex.raw(`ALTER TABLE review_notes MODIFY subject_type ENUM(${flagSubjects(['zone_quantity'])}) NOT NULL`)
+  // The rates page sums each day's person-hours: from this index alone, never the rows themselves.
+  await knex.schema.alterTable('time_entries', (t) => {
+    t.index(['day_sheet_id', 'hours'], 'time_entries_day_sheet_hours_index')
+  })
 }
 
 export async function down(knex: Knex): Promise<void> {
+  await knex.schema.alterTable('time_entries', (t) => {
+    t.dropIndex(['day_sheet_id', 'hours'], 'time_entries_day_sheet_hours_index')
+  })
   await knex('review_notes').where('subject_type', 'zone_quantity').delete()
   await knex.raw(`ALTER TABLE review_notes MODIFY subject_type ENUM(${flagSubjects([])}) NOT NULL`)
   await knex.schema.dropTableIfExists('zone_quantities')

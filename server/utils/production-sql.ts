@@ -16,19 +16,21 @@ function scope(db: Knex, organisationId: string, query: RatesQuery) {
   return q
 }
 
-/** The SQL for rateRule: a day's crew-day less its hours lost, shared equally by its lines, as DOUBLE (never DECIMAL division). */
+/**
+ * The SQL for rateRule, one row a line built: a day's crew-day less its hours lost, shared equally by
+ * its lines (counted with a window, not a subquery a line), as DOUBLE (never DECIMAL division). The
+ * person-hours come from time_entries' (day_sheet_id, hours) index alone.
+ */
 function samplesSql(db: Knex, organisationId: string, query: RatesQuery) {
   const { full_day: full, half_day: half } = scheduledHours
   const effective = `CASE s.status WHEN 'full_day' THEN 1 - LEAST(GREATEST(CAST(s.hours_lost AS DOUBLE), 0), ${full}) / ${full} WHEN 'half_day' THEN 0.5 * (1 - LEAST(GREATEST(CAST(s.hours_lost AS DOUBLE), 0), ${half}) / ${half}) ELSE 0 END`
-  const days = scope(db, organisationId, query).whereIn('s.status', ['full_day', 'half_day'])
-    .select('s.id', db.raw(`${effective} AS effective`),
-      db.raw('(SELECT COUNT(*) FROM zone_quantities c WHERE c.day_sheet_id = s.id AND c.quantity > 0) AS n'),
+  const lines = scope(db, organisationId, query).whereIn('s.status', ['full_day', 'half_day'])
+    .join('zone_quantities as q', 'q.day_sheet_id', 's.id').join('zones as z', 'z.id', 'q.zone_id').where('q.quantity', '>', 0)
+    .select('z.kind as zoneKind', 'q.stage', 'q.day_sheet_id as daySheetId', db.raw('CAST(q.quantity AS DOUBLE) AS qty'), db.raw(`${effective} AS effective`),
+      db.raw('COUNT(*) OVER (PARTITION BY q.day_sheet_id) AS n'),
       db.raw('(SELECT CAST(COALESCE(SUM(t.hours), 0) AS DOUBLE) FROM time_entries t WHERE t.day_sheet_id = s.id) AS ph'))
-  return db.from(days.as('d')).join('zone_quantities as q', 'q.day_sheet_id', 'd.id').join('zones as z', 'z.id', 'q.zone_id')
-    .where('q.quantity', '>', 0).andWhere('d.effective', '>', 0)
-    .select('z.kind as zoneKind', 'q.stage', 'q.day_sheet_id as daySheetId',
-      db.raw('CAST(q.quantity AS DOUBLE) / (d.effective / d.n) AS perCrewDay'),
-      db.raw('CASE WHEN d.ph > 0 THEN CAST(q.quantity AS DOUBLE) / (d.ph / d.n) END AS perPersonHour'))
+  return db.from(lines.as('d')).where('d.effective', '>', 0)
+    .select('zoneKind', 'stage', 'daySheetId', db.raw('qty / (effective / n) AS perCrewDay'), db.raw('CASE WHEN ph > 0 THEN qty / (ph / n) END AS perPersonHour'))
 }
 
 interface RateRow { zoneKind: ZoneKind, stage: ProductionStage, days: number | string, median: number, p80: number, min: number, max: number, perPersonHourMedian: number | null, daySheetIds: string | null }
