@@ -169,7 +169,7 @@ export interface WeatherAllowance { months: WeatherMonth[], workingDays: number,
  * from the company's own history: for each calendar month, the share of scheduled days (all but
  * no-work days) lost to rain-outs and hours lost (pro-rated as for rates). Walking the job's working
  * days (weekends and `holidays` off), each yields one less its month's share, until the crew-days are
- * met; the allowance is the scheduled days counted less the crew-days needed.
+ * met; the allowance is the scheduled days counted less the whole working days the crew-days need.
  */
 export function weatherAllowance(history: { workDate: string, status: DayStatus, hoursLost: number }[], startDate: string, workingDays: number, holidays: ReadonlySet<string> = new Set()): WeatherAllowance {
   const months: WeatherMonth[] = Array.from({ length: 12 }, (_, i) => ({ month: i + 1, scheduled: 0, lost: 0, share: 0 }))
@@ -191,5 +191,6 @@ export function weatherAllowance(history: { workDate: string, status: DayStatus,
     productive += 1 - (months[Number(day.slice(5, 7)) - 1] as WeatherMonth).share
     if (productive >= workingDays - 1e-9) break
   }
-  return { months, workingDays, scheduledDays, allowanceDays: scheduledDays - workingDays, finish: day }
+  // A half crew-day left takes a whole working day with or without weather: only the days beyond those are the allowance.
+  return { months, workingDays, scheduledDays, allowanceDays: Math.max(0, scheduledDays - Math.ceil(workingDays - 1e-9)), finish: day }
 }

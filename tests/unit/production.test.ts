@@ -127,6 +127,12 @@ describe('weatherAllowance', () => {
     expect(w).toMatchObject({ scheduledDays: 8, allowanceDays: 2, finish: '2027-04-14' })
   })
 
+  it('8.5 crew-days in a month with no weather lost need 9 working days and no allowance (the half day is not weather)', () => {
+    // Nothing lost in June: 9 days of 1 each reach 8.5 on the ninth; 9 − ceil(8.5) = 0.
+    const june = [{ workDate: '2026-06-01', status: 'full_day' as const, hoursLost: 0 }]
+    expect(weatherAllowance(june, '2027-06-07', 8.5)).toMatchObject({ scheduledDays: 9, allowanceDays: 0 })
+  })
+
   it('a job starting Thursday 29 April runs into a dry May: 3 crew-days need 4 working days', () => {
     // 29 Apr 0.75 + 30 Apr 0.75 + 3 May 1 = 2.5 < 3; + 4 May 1 = 3.5: four days, allowance 1.
     expect(weatherAllowance(april, '2027-04-29', 3)).toMatchObject({ scheduledDays: 4, allowanceDays: 1, finish: '2027-05-04' })
