@@ -70,7 +70,8 @@ describe('a crew lead counting what got built with no signal', () => {
   })
 
   it('shows the office the new percent built (50.5%) and the forecast at the job\'s rate (4 of 4 crew-days, on track)', async () => {
-    const office = await browser.newContext({ baseURL: url('/') })
+    // On a phone's narrow screen, where the zones table scrolls sideways.
+    const office = await phoneContext(browser, { baseURL: url('/') })
     const desk = await office.newPage()
     await signInInBrowser(desk, company.office.email, fixturePassword)
     await desk.goto(`/jobs/${company.jobId}`)

@@ -7,7 +7,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { useBuiltServer } from '../support/server'
 import { createCompany, fixturePassword, type FixtureCompany } from '../support/fixtures'
 import { testDb } from '../support/db'
-import { checkAccessibility, launchBrowser, signInInBrowser, waitForApp } from '../support/browser'
+import { checkAccessibility, launchBrowser, phoneContext, signInInBrowser, waitForApp } from '../support/browser'
 
 await useBuiltServer()
 
@@ -35,7 +35,7 @@ beforeAll(async () => {
   await db('jobs').insert({ id: newJobId, organisation_id: company.organisationId, name: 'Quill Street patio', customer_name: 'Fixture customer', site_address: '2 Quill Street', status: 'planned', crew_days_bid: 5, crew_size: 3, person_hours_bid: 120, start_date: '2027-03-01' })
   await db('zones').insert({ id: newZoneId, job_id: newJobId, name: 'New patio', kind: 'patio', area_sq_ft: 600 })
   browser = await launchBrowser()
-  context = await browser.newContext({ baseURL: url('/') })
+  context = await phoneContext(browser, { baseURL: url('/') })
   page = await context.newPage()
   await signInInBrowser(page, company.office.email, fixturePassword)
 })
