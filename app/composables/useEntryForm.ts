@@ -1,11 +1,11 @@
 import type { z } from 'zod'
 
 /**
- * What a lift's and a drop's form share: the record checked with its schema (field errors in the
+ * What a lift's, a drop's and a built quantity's form share: the record checked with its schema (field errors in the
  * user's language), the day sheet saved first when it is new, the record and its photos queued on the
  * phone, then the form started again.
  */
-export function useEntryForm<T extends { id: string }>(kind: 'lift' | 'material_drop', root: Ref<HTMLElement | undefined>, ensureSheet: () => Promise<boolean>) {
+export function useEntryForm<T extends { id: string }>(kind: 'lift' | 'material_drop' | 'zone_quantity', root: Ref<HTMLElement | undefined>, ensureSheet: () => Promise<boolean>) {
   const store = useDaybookStore()
   const { t } = useI18n()
   const { errors, formError, show } = useRecordErrors(kind, root)
@@ -27,7 +27,8 @@ export function useEntryForm<T extends { id: string }>(kind: 'lift' | 'material_
         return
       }
       await save(result.data)
-      if (files.value.length) await store.addPhotos(files.value, { type: kind, id: result.data.id }, options.caption)
+      // What got built carries no photo of its own (the day's photos show it).
+      if (files.value.length && kind !== 'zone_quantity') await store.addPhotos(files.value, { type: kind, id: result.data.id }, options.caption)
       files.value = []
       options.done()
     }

@@ -1,7 +1,7 @@
 // The crew lead's daybook as the phone sees it: the server's last copy with every local change on top.
 // Screens read from here and save through here; nothing waits for the network.
 import { skipHydrate } from 'pinia'
-import type { DaySheetRecord, FlagAnswerRecord, LiftRecord, MaterialDropRecord, MaterialEstimateRecord, RecordKind, SyncKind, TimeEntryRecord, ZoneRecord } from '~~/shared/schemas/daybook'
+import type { DaySheetRecord, FlagAnswerRecord, LiftRecord, MaterialDropRecord, MaterialEstimateRecord, RecordKind, SyncKind, TimeEntryRecord, ZoneQuantityRecord, ZoneRecord } from '~~/shared/schemas/daybook'
 import type { SnapshotFlag } from '~~/shared/types/snapshot'
 import { maxStaleKeys, type SnapshotAnswer } from '~~/shared/utils/snapshot-lists'
 import { askPersistentStorage, idb } from '~/utils/idb'
@@ -117,6 +117,14 @@ export const useDaybookStore = defineStore('daybook', () => {
     return below.reduce((sum, l) => sum + l.compactedIn, older)
   }
 
+  /** What a zone has reached at each stage: the days this phone holds, and older days as the snapshot summed them. */
+  function builtSoFar(zoneId: string): Record<string, number> {
+    const sums: Record<string, number> = {}
+    for (const b of (meta.value?.builtEarlier ?? []).filter(b => b.zoneId === zoneId)) sums[b.stage] = (sums[b.stage] ?? 0) + b.quantity
+    for (const q of (all('zone_quantity') as unknown as ZoneQuantityRecord[]).filter(q => q.zoneId === zoneId)) sums[q.stage] = (sums[q.stage] ?? 0) + q.quantity
+    return sums
+  }
+
   function lastCrewFor(jobId: string, beforeDate: string): { crewMemberId: string, hours: number }[] {
     const earlier = sheets.value.filter(s => s.jobId === jobId && s.workDate < beforeDate && entriesOf(s.id).length > 0)
       .sort((a, b) => b.workDate.localeCompare(a.workDate))[0]
@@ -152,6 +160,7 @@ export const useDaybookStore = defineStore('daybook', () => {
     time_entry: (r: Record<string, unknown>) => `Hours: ${roster.value.find(p => p.id === r.crewMemberId)?.name ?? 'crew'} ${r.hours} h`,
     material_drop: (r: Record<string, unknown>) => `Drop: ${r.quantity} ${r.unit} ${r.material}`,
     lift: (r: Record<string, unknown>) => `Lift: ${r.compactedIn} in ${r.material}`,
+    zone_quantity: (r: Record<string, unknown>) => `Built: ${r.quantity} ${r.stage}`,
   }
   const save = async (kind: RecordKind, record: unknown) => {
     const clean = await validated(kind, record)
@@ -208,6 +217,9 @@ export const useDaybookStore = defineStore('daybook', () => {
     saveDrop: (r: MaterialDropRecord) => save('material_drop', r),
     saveZone: (r: ZoneRecord) => save('zone', r),
     saveEstimate: (r: MaterialEstimateRecord) => save('material_estimate', r),
+    saveQuantity: (r: ZoneQuantityRecord) => save('zone_quantity', r),
+    quantitiesOf: (sheetId: string) => childrenOf<ZoneQuantityRecord>('zone_quantity', sheetId),
+    builtSoFar,
     zonesOf, estimatesOf, zoneById, compactedBeforeIn,
     setCrewHours, remove, logRainOut, addPhotos,
     flagsOfJob, flagsOfDay, answersOf, answerFlag,

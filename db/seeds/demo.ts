@@ -8,6 +8,7 @@ import type { Storage } from 'unstorage'
 import { photoKeys } from '../../shared/utils/photos'
 import { company, crew, demoPassword, jobs, users, type DemoJob } from './demo-scenario'
 import { demoImage, type DemoScene } from './demo-images'
+import { historyJobs } from './demo-history'
 
 /** Moves a date by whole working days (Monday to Friday). */
 function addWorkingDays(from: Dayjs, days: number): Dayjs {
@@ -49,7 +50,9 @@ export async function seedDemo(knex: Knex, photos: Storage, today = dayjs()): Pr
       id: idOf(crewIds, c.key), organisation_id: organisationId, name: c.name, trade_role: c.tradeRole,
       user_id: c.userKey ? idOf(userIds, c.userKey) : null,
     })))
-    for (const job of jobs) {
+    // The past year's finished jobs, dated like the others (working days before today).
+    const history = historyJobs((ago, offset) => addWorkingDays(lastWorkingDay(today.startOf('day')), offset - ago).month() + 1)
+    for (const job of [...jobs, ...history]) {
       await seedJob(trx, photos, job, { organisationId, today, foremanId: idOf(userIds, 'foreman'), leadId: idOf(userIds, job.lead), crewIds })
     }
   })
@@ -70,9 +73,9 @@ async function seedJob(trx: Knex.Transaction, photos: Storage, job: DemoJob, ctx
   const zoneIds = new Map(job.zones.map(z => [z.key, randomUUID()]))
   await trx('zones').insert(job.zones.map(z => ({
     id: zoneIds.get(z.key), job_id: jobId, name: z.name, kind: z.kind, design_base_depth_in: z.depthIn,
-    base_extension_in: z.extensionIn, area_sq_ft: z.areaSqFt ?? null, length_ft: z.lengthFt ?? null,
+    base_extension_in: z.extensionIn, area_sq_ft: z.areaSqFt ?? null, length_ft: z.lengthFt ?? null, risers: z.risers ?? null, crew_days_bid: z.crewDaysBid ?? null,
   })))
-  await trx('material_estimates').insert(job.estimate.map(e => ({ id: randomUUID(), job_id: jobId, ...e })))
+  if (job.estimate.length) await trx('material_estimates').insert(job.estimate.map(e => ({ id: randomUUID(), job_id: jobId, ...e })))
 
   const photo = async (scene: DemoScene, caption: string, subject: { type: string, id: string }, dayId: string, takenAt: Dayjs) => {
     const id = randomUUID()
@@ -102,7 +105,12 @@ async function seedJob(trx: Knex.Transaction, photos: Storage, job: DemoJob, ctx
       reviewed_at: reviewed ? date.hour(20).toDate() : null,
     })
     if (hours > 0 && day.crew.length > 0) {
-      await trx('time_entries').insert(day.crew.map(key => ({ id: randomUUID(), day_sheet_id: dayId, crew_member_id: ctx.crewIds.get(key), hours })))
+      // Hours lost on a full day are hours not worked; a half day's lost half is already left out.
+      const worked = day.status === 'full_day' ? hours - (day.hoursLost ?? 0) : hours
+      await trx('time_entries').insert(day.crew.map(key => ({ id: randomUUID(), day_sheet_id: dayId, crew_member_id: ctx.crewIds.get(key), hours: worked })))
+    }
+    if (day.built?.length) {
+      await trx('zone_quantities').insert(day.built.map(b => ({ id: randomUUID(), day_sheet_id: dayId, job_id: jobId, zone_id: zoneIds.get(b.zone), stage: b.stage, quantity: b.quantity, cap_lf: b.capLf ?? null })))
     }
     for (const drop of day.drops ?? []) {
       const dropId = randomUUID()

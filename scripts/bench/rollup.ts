@@ -6,6 +6,7 @@ import { freshDatabase, median, percentile, signIn, startServer, timed } from '.
 import { benchPassword, seedCompany } from './seed'
 import { BulkWriter, seedDays } from './seed-days'
 import { failInOneLine } from '../run-helpers'
+import { timeRates } from './rates'
 
 const database = 'tamp_bench_rollup'
 const jobCount = 500
@@ -79,7 +80,9 @@ async function main(): Promise<void> {
     for (let r = 0; r < reviewRounds; r++) reviewMs.push((await timed(review)).ms)
     console.log(`review list: GET /api/review for a foreman of ${jobCount + 1} jobs, over HTTP`)
     console.log(`review list: p50 ${percentile(reviewMs, 50).toFixed(2)} ms, p95 ${percentile(reviewMs, 95).toFixed(2)} ms over ${reviewRounds} rounds`)
-    console.log(`RESULT rollup_ratio=${(serverMedian / median(bareMs)).toFixed(3)} review_p95_ms=${percentile(reviewMs, 95).toFixed(2)}`)
+    const rates = await timeRates(db, server.url, company)
+    console.log(`rates page: GET /api/rates over ${rates.lines} quantities built, ${rates.serverMs.toFixed(2)} ms in the server, ${rates.clientMs.toFixed(2)} ms over HTTP (medians)`)
+    console.log(`RESULT rollup_ratio=${(serverMedian / median(bareMs)).toFixed(3)} review_p95_ms=${percentile(reviewMs, 95).toFixed(2)} rates_ms=${rates.serverMs.toFixed(2)}`)
   }
   finally {
     await server.stop()

@@ -3,6 +3,7 @@
 // to what its member may see before calling.
 import type { ReviewDay } from '../../shared/schemas/review'
 import type { DayStatus, ReviewState } from '../../shared/utils/daybook'
+import { dayQuantities } from './zone-quantities'
 
 export interface DaySheetFields {
   id: string, workDate: string, status: DayStatus, reviewState: ReviewState, startedAt: string | null, finishedAt: string | null,
@@ -27,6 +28,7 @@ export interface DayParts {
   crew: ReviewDay['crew']
   drops: ReviewDay['drops']
   lifts: Omit<ReviewDay['lifts'][number], 'checks'>[]
+  quantities: ReviewDay['quantities']
   /** In the order taken; photos without a time first, by upload. */
   photos: DayPhotoRow[]
 }
@@ -42,10 +44,10 @@ export function daySheetFields(s: DaySheetRow): DaySheetFields {
   }
 }
 
-/** The crew (by name), the drops (as logged), the lifts (by zone, then in order) and the photos of one day. */
+/** The crew (by name), the drops (as logged), the lifts (by zone, then in order), what got built (zone-quantities.ts) and the photos of one day. */
 export async function loadDayParts(dayId: string): Promise<DayParts> {
   const db = useDb()
-  const [crew, drops, lifts, photos] = await Promise.all([
+  const [crew, drops, lifts, photos, quantities] = await Promise.all([
     db('time_entries as t').join('crew_members as c', 'c.id', 't.crew_member_id').where('t.day_sheet_id', dayId).orderBy('c.name')
       .select('t.id', 't.crew_member_id as crewMemberId', 'c.name', 't.hours'),
     db('material_drops').where('day_sheet_id', dayId).orderBy('created_at')
@@ -55,6 +57,7 @@ export async function loadDayParts(dayId: string): Promise<DayParts> {
         'l.sequence', 'l.material', 'l.loose_in as looseIn', 'l.compacted_in as compactedIn', 'l.passes', 'l.compactor_class as compactorClass', 'l.moisture_note as moistureNote'),
     db('photos').where('day_sheet_id', dayId).orderBy([{ column: 'taken_at' }, { column: 'created_at' }])
       .select('id', 'subject_type as subjectType', 'subject_id as subjectId', 'caption', 'taken_at as takenAt', 'width', 'height', 'created_at as createdAt', 'thumb_key as thumbKey'),
+    dayQuantities(dayId),
   ])
-  return { crew, drops, lifts, photos }
+  return { crew, drops, lifts, photos, quantities }
 }

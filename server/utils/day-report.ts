@@ -4,6 +4,7 @@ import type { Member } from './members'
 import { dayStatusLabels, weatherLine } from '../../shared/utils/daybook'
 import { photoUrls } from '../../shared/utils/photos'
 import { daySheetFields, loadDayParts, type DaySheetFields } from './day-parts'
+import { builtLine } from './zone-quantities'
 
 export interface DayReport {
   job: { id: string, name: string, customerName: string, siteAddress: string, organisationId: string, foremanId: string | null, customerEmail: string | null, homeownerUpdates: boolean }
@@ -11,6 +12,8 @@ export interface DayReport {
   crew: { name: string, hours: number }[]
   drops: { material: string, quantity: number, unit: string, stagedAt: string | null, ticketNumber: string | null }[]
   lifts: { zone: string, sequence: number, material: string, looseIn: number, compactedIn: number, passes: number, compactorClass: string }[]
+  /** What got built, each as one line (zone-quantities.ts). */
+  built: string[]
   photos: { id: string, caption: string | null, thumbKey: string, thumbUrl: string, displayUrl: string }[]
 }
 
@@ -20,12 +23,13 @@ export async function loadDayReport(daySheetId: string): Promise<DayReport | und
   const row = await db('day_sheets as s').join('jobs as j', 'j.id', 's.job_id').where('s.id', daySheetId)
     .first('s.*', 'j.name as job_name', 'j.customer_name', 'j.site_address', 'j.organisation_id', 'j.foreman_id', 'j.customer_email', 'j.homeowner_updates')
   if (!row) return undefined
-  const { crew, drops, lifts, photos } = await loadDayParts(daySheetId)
+  const { crew, drops, lifts, photos, quantities } = await loadDayParts(daySheetId)
   return {
     job: { id: row.job_id, name: row.job_name, customerName: row.customer_name, siteAddress: row.site_address, organisationId: row.organisation_id, foremanId: row.foreman_id, customerEmail: row.customer_email, homeownerUpdates: Boolean(row.homeowner_updates) },
     day: daySheetFields(row),
     crew: crew.map(c => ({ name: c.name, hours: c.hours })),
     drops: drops.map(({ id: _id, ...d }) => d),
+    built: quantities.map(builtLine),
     lifts: lifts.map(l => ({ zone: l.zoneName, sequence: l.sequence, material: l.material, looseIn: l.looseIn, compactedIn: l.compactedIn, passes: l.passes, compactorClass: l.compactorClass })),
     // Untimed photos sit at their upload time here, not first as on the foreman's review. Photos sent
     // with the crew's answers to review flags stay between the crew and the foreman: the report can go
@@ -64,6 +68,7 @@ export function dayReportFacts(report: DayReport, audience: 'office' | 'homeowne
     facts.push(['Crew', `${report.crew.length} on site`])
   }
   facts.push(['Work done', day.workDone || 'Nothing noted'])
+  facts.push(['Built', report.built.length ? report.built.join('; ') : 'Nothing recorded'])
   facts.push(['Material drops', report.drops.length ? report.drops.map(d => `${d.quantity} ${d.unit} ${d.material}${d.stagedAt ? ` at ${d.stagedAt}` : ''}`).join('; ') : 'None'])
   facts.push(['Base lifts', report.lifts.length ? report.lifts.map(l => `${l.zone} lift ${l.sequence}: ${l.material}, ${l.looseIn} in loose to ${l.compactedIn} in compacted, ${l.passes} passes`).join('; ') : 'None'])
   if (audience === 'office' && day.siteNotes) facts.push(['Site notes', day.siteNotes])

@@ -138,11 +138,13 @@ async function removeZones(trx: Knex.Transaction, jobId: string, zones: Line<'zo
   const gone = existing.filter(z => !keep.has(z.id))
   const known = new Set(existing.filter(z => keep.has(z.id)).map(z => z.id as string))
   if (!gone.length) return known
-  // A zone with lifts logged on it carries the proof of its base: it stays.
-  const used = await trx('lifts').whereIn('zone_id', gone.map(z => z.id)).distinct('zone_id')
+  // A zone with lifts logged on it carries the proof of its base, one with work counted as built its
+  // history: it stays.
+  const ids = gone.map(z => z.id)
+  const used = await trx('lifts').whereIn('zone_id', ids).distinct('zone_id').union(trx('zone_quantities').whereIn('zone_id', ids).distinct('zone_id'))
   if (used.length) {
     const names = gone.filter(z => used.some(u => u.zone_id === z.id)).map(z => z.name).join(', ')
-    throw fieldError(409, `Lifts are logged on ${names}: the zone cannot be removed`, { zones: `Lifts are logged on ${names}` })
+    throw fieldError(409, `Lifts or built quantities are logged on ${names}: the zone cannot be removed`, { zones: `Lifts or built quantities are logged on ${names}` })
   }
   await trx('zones').whereIn('id', gone.map(z => z.id)).delete()
   return known

@@ -3,6 +3,7 @@
 import type { Member } from './members'
 import type { JobsTableQuery, JobsTableRow, JobsTableSort } from '../../shared/schemas/jobs'
 import { firstOpenDay, projectedFinish, todayIn } from '../../shared/utils/work-calendar'
+import { withForecasts } from './job-progress'
 
 const round = (n: number, places = 2) => Math.round(n * 10 ** places) / 10 ** places
 
@@ -72,11 +73,14 @@ export async function jobsTable(member: Member, query: JobsTableQuery, jobId?: s
       mark: r.mark as JobsTableRow['mark'],
     }
   })
+  // The forecast needs every zone's progress: worked out after the aggregate, and filtered on here.
+  const withForecast = await withForecasts(rows)
+  const forecast = query.forecast === 'over' ? withForecast.filter(r => r.forecastState === 'over') : withForecast
   if (query.sort === 'projectedFinish') {
     const sign = query.dir === 'asc' ? 1 : -1
-    rows.sort((a, b) => sign * (a.projectedFinish ?? '').localeCompare(b.projectedFinish ?? ''))
+    forecast.sort((a, b) => sign * (a.projectedFinish ?? '').localeCompare(b.projectedFinish ?? ''))
   }
-  return rows
+  return forecast
 }
 
 /** The jobs table as CSV rows, in the order of the screen. */

@@ -4,6 +4,7 @@ import type { Member } from './members'
 import { fromRow, kindMaps } from './sync/kinds'
 import type { RecordKind } from '../../shared/schemas/daybook'
 import type { Snapshot, SnapshotFlag, SnapshotJob, SnapshotZone } from '../../shared/types/snapshot'
+import { builtBeforeWindow } from './zone-quantities'
 
 const recentDays = 30
 
@@ -28,13 +29,15 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
   ])
   const daySheets: Snapshot['daySheets'] = sheetRows.map((row: Record<string, unknown>) => ({ ...fromRow('day_sheet', row), id: row.id as string, revision: row.revision as number, reviewState: row.review_state as string }))
   const sheetIds = sheetRows.map(row => row.id as string)
-  const [zoneRecords, materialEstimates, timeEntries, materialDrops, lifts, photos] = await Promise.all([
+  const [zoneRecords, materialEstimates, timeEntries, materialDrops, lifts, photos, zoneQuantities, builtEarlier] = await Promise.all([
     recordsOf('zone', 'job_id', jobIds),
     recordsOf('material_estimate', 'job_id', jobIds),
     recordsOf('time_entry', 'day_sheet_id', sheetIds),
     recordsOf('material_drop', 'day_sheet_id', sheetIds),
     recordsOf('lift', 'day_sheet_id', sheetIds),
     sheetIds.length ? db('photos').whereIn('day_sheet_id', sheetIds).select('id', 'day_sheet_id as daySheetId', 'subject_type as subjectType', 'subject_id as subjectId', 'caption', 'taken_at as takenAt', 'width', 'height') : [],
+    recordsOf('zone_quantity', 'day_sheet_id', sheetIds),
+    builtBeforeWindow(jobIds, recentDays),
   ])
   const { reviewFlags, flagAnswers } = await openFlagsOf(jobIds)
   const earlier = await compactedBeforeWindow(jobIds)
@@ -51,6 +54,8 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
     photos,
     reviewFlags,
     flagAnswers,
+    zoneQuantities,
+    builtEarlier,
   }
 }
 

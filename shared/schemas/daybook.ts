@@ -1,6 +1,7 @@
 // The records a crew lead's phone creates, as the phone saves them and the sync route checks them.
 import { z } from 'zod'
 import { dayStatuses, zoneKinds } from '../utils/daybook'
+import { productionStages } from '../utils/trade-data-production'
 import { boundedDate } from './dates'
 
 // Lower case, as the database compares them: one record whatever case its id is sent in.
@@ -73,6 +74,16 @@ export const liftRecord = z.strictObject({
   when: ({ value }) => bothNumbers(value, 'looseIn', 'compactedIn'),
 })
 
+/** What the crew built in one zone on one day up to one stage, in the zone's natural unit (trade-data-production.ts). */
+export const zoneQuantityRecord = z.strictObject({
+  id,
+  daySheetId: id,
+  zoneId: id,
+  stage: z.enum(productionStages, { error: 'Choose the stage it reached' }),
+  quantity: z.number({ error: 'Enter how much got built, as a number' }).gt(0, 'Enter how much got built: more than 0').max(100_000, 'At most 100000'),
+  capLf: number(0, 10_000, 'ft').nullable().optional(),
+})
+
 /** A zone's design values, written from the Plan screen by the foreman or the office. */
 export const zoneRecord = z.strictObject({
   id,
@@ -84,6 +95,8 @@ export const zoneRecord = z.strictObject({
   lengthFt: number(0, 100_000, 'ft').nullable().optional(),
   baseExtensionIn: number(0, 48, 'in').nullable().optional(),
   notes: optionalText(4000),
+  risers: z.number({ error: 'Enter a number' }).int('Whole risers only').min(0, 'At least 0 risers').max(500, 'At most 500 risers').nullable().optional(),
+  crewDaysBid: number(0, 999, 'crew-days').nullable().optional(),
 })
 
 /** One line of a job's material estimate. */
@@ -102,6 +115,7 @@ export const recordSchemas = {
   time_entry: timeEntryRecord,
   material_drop: materialDropRecord,
   lift: liftRecord,
+  zone_quantity: zoneQuantityRecord,
 } as const
 
 export type RecordKind = keyof typeof recordSchemas
@@ -112,7 +126,8 @@ export type MaterialDropRecord = z.infer<typeof materialDropRecord>
 export type LiftRecord = z.infer<typeof liftRecord>
 export type ZoneRecord = z.infer<typeof zoneRecord>
 export type MaterialEstimateRecord = z.infer<typeof materialEstimateRecord>
-export interface RecordOf { day_sheet: DaySheetRecord, time_entry: TimeEntryRecord, material_drop: MaterialDropRecord, lift: LiftRecord, zone: ZoneRecord, material_estimate: MaterialEstimateRecord }
+export type ZoneQuantityRecord = z.infer<typeof zoneQuantityRecord>
+export interface RecordOf { day_sheet: DaySheetRecord, time_entry: TimeEntryRecord, material_drop: MaterialDropRecord, lift: LiftRecord, zone: ZoneRecord, material_estimate: MaterialEstimateRecord, zone_quantity: ZoneQuantityRecord }
 
 /** One change the phone sends: the record as it is now, and the server revision it was edited from. */
 const change = <K extends RecordKind>(kind: K) => z.strictObject({
@@ -137,7 +152,7 @@ const flagAnswerChange = z.strictObject({
   record: flagAnswerRecord,
 })
 
-export const syncChange = z.discriminatedUnion('kind', [change('day_sheet'), change('time_entry'), change('material_drop'), change('lift'), change('zone'), change('material_estimate'), flagAnswerChange])
+export const syncChange = z.discriminatedUnion('kind', [change('day_sheet'), change('time_entry'), change('material_drop'), change('lift'), change('zone'), change('material_estimate'), change('zone_quantity'), flagAnswerChange])
 /** Every change a batch may carry. */
 export type PhoneChange = z.infer<typeof syncChange>
 /** A change of a daybook record (a row of its own table, with revisions). */

@@ -61,13 +61,15 @@ export const jobsTableQuery = z.object({
   status: z.enum(jobStatuses, { error: 'Unknown status' }).optional(),
   foremanId: id.optional(),
   bid: z.enum(bidMarks, { error: 'Use over or under' }).optional(),
+  /** Only the jobs whose rate so far leads past their bid. */
+  forecast: z.enum(['over'], { error: 'Use over' }).optional(),
   sort: z.enum(jobsTableSorts, { error: 'Unknown column' }).default('startDate'),
   dir: z.enum(['asc', 'desc'], { error: 'Use asc or desc' }).default('desc'),
 })
 export type JobsTableQuery = z.infer<typeof jobsTableQuery>
 
 /** One row of the office's jobs table. */
-export interface JobsTableRow {
+export interface JobsTableRow extends Partial<JobsTableForecast> {
   id: string
   name: string
   customerName: string
@@ -86,6 +88,15 @@ export interface JobsTableRow {
   lastWorkDate: string | null
   projectedFinish: string | null
   mark: BidMark
+}
+
+/** The forecast beside used and bid (server/utils/job-progress.ts). */
+export interface JobsTableForecast {
+  /** 0 to 1; null when no zone has a planned quantity. */
+  percentComplete: number | null
+  forecastCrewDays: number | null
+  forecastOverBy: number | null
+  forecastState: 'no_plan' | 'not_started' | 'on_track' | 'over'
 }
 
 export const holidaysBody = z.strictObject({

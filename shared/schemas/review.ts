@@ -6,7 +6,7 @@ const id = z.uuid('Not a valid id')
 const note = (max: number) => z.string().trim().max(max, `At most ${max} characters`)
 
 /** What a flag can point at: the day itself or one record logged on it. */
-export const flagSubjectTypes = ['day_sheet', 'lift', 'material_drop', 'photo', 'time_entry'] as const
+export const flagSubjectTypes = ['day_sheet', 'lift', 'material_drop', 'photo', 'time_entry', 'zone_quantity'] as const
 export type FlagSubjectType = (typeof flagSubjectTypes)[number]
 
 /** Why the foreman flags a record (our own short list; "other" needs a note). */
@@ -74,6 +74,8 @@ export interface ReviewDay {
   crew: { id: string, crewMemberId: string, name: string, hours: number }[]
   drops: { id: string, material: string, quantity: number, unit: string, stagedAt: string | null, ticketNumber: string | null }[]
   lifts: { id: string, zoneId: string, zoneName: string, zoneKind: string, designBaseDepthIn: number | null, baseExtensionIn: number | null, sequence: number, material: string, looseIn: number, compactedIn: number, passes: number, compactorClass: string, moistureNote: string | null, checks: LiftCheck[] }[]
+  /** What got built, zone by zone and stage by stage. */
+  quantities: { id: string, zoneId: string, zoneName: string, zoneKind: string, stage: string, quantity: number, capLf: number | null }[]
   photos: ReviewPhotoView[]
   notes: ReviewNoteView[]
 }

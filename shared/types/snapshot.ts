@@ -1,5 +1,6 @@
 // What GET /api/daybook/snapshot answers: the phone's offline copy of its jobs and recent days.
 import type { ZoneKind } from '../utils/daybook'
+import type { ProductionStage } from '../utils/trade-data-production'
 
 export interface SnapshotZone {
   id: string
@@ -44,7 +45,7 @@ export interface SnapshotFlag {
   jobId: string
   daySheetId: string
   workDate: string
-  subjectType: 'day_sheet' | 'lift' | 'material_drop' | 'photo' | 'time_entry'
+  subjectType: 'day_sheet' | 'lift' | 'material_drop' | 'photo' | 'time_entry' | 'zone_quantity'
   subjectId: string
   reason: string | null
   body: string | null
@@ -75,4 +76,7 @@ export interface Snapshot {
   /** Open flags on the phone's jobs, and the answers already sent to them (records of kind flag_answer). */
   reviewFlags: SnapshotFlag[]
   flagAnswers: SnapshotRecord[]
+  /** What got built on the days held, as records; and per zone and stage what was built on older days. */
+  zoneQuantities: SnapshotRecord[]
+  builtEarlier: { zoneId: string, stage: ProductionStage, quantity: number }[]
 }

@@ -20,6 +20,7 @@ export const snapshotLists = {
   materialDrops: { kind: 'material_drop' },
   lifts: { kind: 'lift' },
   flagAnswers: { kind: 'flag_answer' },
+  zoneQuantities: { kind: 'zone_quantity' },
 } as const satisfies Record<SnapshotListName, SnapshotListRule>
 
 export type RecordListName = { [K in SnapshotListName]: (typeof snapshotLists)[K] extends { kind: SyncKind } ? K : never }[SnapshotListName]

@@ -200,7 +200,7 @@ describe('job setup', () => {
     expect((await call('POST', '/api/jobs', { cookie: office, body })).status).toBe(201)
     const { job } = await (await call('GET', `/api/jobs/${body.id}/setup`, { cookie: office })).json()
     const [stone] = job.materials.filter((m: { unit: string }) => m.unit === 'ton')
-    const zones = [{ ...job.zones[0], name: 'Back patio, east half', notes: '10:00:00' }, { id: randomUUID(), name: 'Side walk', kind: 'walkway', designBaseDepthIn: null, areaSqFt: null, lengthFt: 30, baseExtensionIn: 6, notes: null }]
+    const zones = [{ ...job.zones[0], name: 'Back patio, east half', notes: '10:00:00' }, { id: randomUUID(), name: 'Side walk', kind: 'walkway', designBaseDepthIn: null, areaSqFt: null, lengthFt: 30, baseExtensionIn: 6, notes: null, risers: null, crewDaysBid: null }]
     const materials = [{ id: randomUUID(), material: 'Crushed stone base', quantity: 2, unit: 'ton' }, { ...stone, material: 'Bedding sand', quantity: 3 }]
     const edit = { ...job, zones, materials }
     delete edit.id

@@ -93,6 +93,9 @@ const cases: Record<string, Case> = {
   'GET /api/jobs': { request: path('/api/jobs'), expect: [401, 200, 200, 200, 200] },
   'GET /api/jobs/:id': { request: async () => ({ path: `/api/jobs/${ours.jobId}` }), expect: [401, 200, 200, 200, 404] },
   'GET /api/jobs/:id/rollup': { request: async () => ({ path: `/api/jobs/${ours.jobId}/rollup` }), expect: [401, 403, 200, 200, 404] },
+  'GET /api/jobs/:id/forecast': { request: async () => ({ path: `/api/jobs/${ours.jobId}/forecast` }), expect: [401, 403, 200, 200, 404] },
+  'GET /api/rates': { request: path('/api/rates'), expect: [401, 403, 403, 200, 200] },
+  'POST /api/rates/bid': { request: async () => ({ path: '/api/rates/bid', body: { startDate: '2026-12-07', zones: [{ zoneKind: 'patio', quantity: 300 }] } }), expect: [401, 403, 403, 200, 200] },
   'GET /api/jobs/:id/lift-checks': { request: async () => ({ path: `/api/jobs/${ours.jobId}/lift-checks` }), expect: [401, 403, 200, 200, 404] },
   // A batch for our job: another company's office gets 200 with the record rejected (tests/server/sync.test.ts).
   'POST /api/jobs': { request: async () => ({ path: '/api/jobs', body: newJobBody() }), expect: [401, 403, 403, 201, 201] },

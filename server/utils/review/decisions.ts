@@ -63,6 +63,7 @@ const subjectTables: Record<FlagSubjectType, { table: string, dayColumn: string 
   material_drop: { table: 'material_drops', dayColumn: 'day_sheet_id' },
   photo: { table: 'photos', dayColumn: 'day_sheet_id' },
   time_entry: { table: 'time_entries', dayColumn: 'day_sheet_id' },
+  zone_quantity: { table: 'zone_quantities', dayColumn: 'day_sheet_id' },
 }
 
 export async function flagRecord(member: Member, input: FlagInput) {

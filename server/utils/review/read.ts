@@ -56,7 +56,7 @@ export async function requireReviewableDay(member: Member, dayId: string, db = u
 export async function reviewDayFor(member: Member, dayId: string): Promise<ReviewDay> {
   const db = useDb()
   const s = await requireReviewableDay(member, dayId)
-  const [{ crew, drops, lifts, photos }, notes, reviewer, author, checked] = await Promise.all([
+  const [{ crew, drops, lifts, photos, quantities }, notes, reviewer, author, checked] = await Promise.all([
     loadDayParts(dayId),
     db('review_notes as n').leftJoin('users as a', 'a.id', 'n.author_id').leftJoin('users as r', 'r.id', 'n.resolved_by').where('n.day_sheet_id', dayId).orderBy('n.created_at')
       .select('n.id', 'n.kind', 'n.subject_type as subjectType', 'n.subject_id as subjectId', 'n.parent_id as parentId', 'n.reason', 'n.body', 'a.name as authorName', 'n.created_at as createdAt', 'n.resolved_at as resolvedAt', 'r.name as resolvedByName'),
@@ -73,6 +73,7 @@ export async function reviewDayFor(member: Member, dayId: string): Promise<Revie
     crew,
     drops,
     lifts: lifts.map(l => ({ ...l, checks: checksOf.get(l.id) ?? [] })),
+    quantities,
     photos: photoViews.filter(p => p.subjectType !== 'review_note'),
     notes: notes.map((n: ReviewNoteView): ReviewNoteView => ({
       ...n, createdAt: iso(n.createdAt) ?? '', resolvedAt: iso(n.resolvedAt),

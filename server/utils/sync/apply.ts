@@ -24,6 +24,12 @@ function placeOf(change: SyncChange, ctx: BatchContext, existingRow: Row | undef
   return { jobId: sheet?.job_id as string | undefined, sheet }
 }
 
+const naturalKeyMessages: Partial<Record<SyncChange['kind'], string>> = {
+  day_sheet: 'This job already has a day sheet for that date',
+  time_entry: 'This person already has hours on this day',
+  zone_quantity: 'This zone already has a quantity at this stage on this day',
+}
+
 const planKinds = new Set<SyncChange['kind']>(['zone', 'material_estimate'])
 
 function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Row>, claimed: Set<string>, member: Member): { result: SyncResult, write?: Write } {
@@ -47,7 +53,7 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   if (sheet?.review_state === 'approved') {
     return { result: { ...base, status: 'conflict', revision: row?.revision as number | undefined, server, message: lockedMessage } }
   }
-  if (change.kind === 'lift' && ctx.zones.get(change.record.zoneId)?.job_id !== jobId) {
+  if ((change.kind === 'lift' || change.kind === 'zone_quantity') && ctx.zones.get(change.record.zoneId)?.job_id !== jobId) {
     return { result: { ...base, status: 'rejected', message: 'That zone is not part of this job' } }
   }
   if (change.kind === 'time_entry' && !ctx.crew.has(change.record.crewMemberId)) {
@@ -72,7 +78,7 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   }
   const natural = naturalKey(kind, record as Record<string, unknown>)
   if (natural && (ctx.naturalKeys.has(natural) || claimed.has(natural))) {
-    const message = change.kind === 'day_sheet' ? 'This job already has a day sheet for that date' : change.kind === 'time_entry' ? 'This person already has hours on this day' : 'The estimate already has this material in this unit'
+    const message = naturalKeyMessages[change.kind] ?? 'The estimate already has this material in this unit'
     return { result: { ...base, status: 'conflict', server: null, message } }
   }
   if (natural) claimed.add(natural)
@@ -107,7 +113,7 @@ async function applyRecordChanges(tx: BatchTransaction, member: Member, changes:
     const rows = writes.filter(w => w.kind === kind && w.op === 'insert').map(({ columns: row }) => {
       Object.assign(row, { revision: 1, created_at: now, updated_at: now })
       if (kind === 'day_sheet') row.author_id = member.userId
-      if (kind === 'material_drop' || kind === 'lift') row.job_id = (ctx.sheets.get(row.day_sheet_id as string) ?? newSheets.get(row.day_sheet_id as string))?.job_id
+      if (kind === 'material_drop' || kind === 'lift' || kind === 'zone_quantity') row.job_id = (ctx.sheets.get(row.day_sheet_id as string) ?? newSheets.get(row.day_sheet_id as string))?.job_id
       if (kind === 'lift') {
         const sequence = ctx.nextLiftSequence.get(row.zone_id as string) ?? 1
         ctx.nextLiftSequence.set(row.zone_id as string, sequence + 1)

@@ -86,7 +86,7 @@ export async function probeBatch(signedIn: SignedIn, changes: SyncChange[], look
   if (parents.length) branches.push(branch('parent', 'day_sheets', 'job_id').whereIn('id', parents))
   const crewIds = unique(ofKind(changes, 'time_entry').map(c => c.record.crewMemberId))
   if (crewIds.length) branches.push(branch('crew', 'crew_members').whereIn('id', crewIds).where('organisation_id', signedIn.organisationId))
-  const zoneIds = unique(ofKind(changes, 'lift').map(c => c.record.zoneId))
+  const zoneIds = unique([...ofKind(changes, 'lift'), ...ofKind(changes, 'zone_quantity')].map(c => c.record.zoneId))
   if (zoneIds.length) branches.push(branch('zone_of_lift', 'zones', 'job_id', db.raw('(SELECT MAX(l.sequence) FROM lifts AS l WHERE l.zone_id = zones.id) AS b')).whereIn('id', zoneIds))
   // The jobs the batch names, directly or through the days its entries join.
   const jobIds = unique(changes.map(c => (c.record as { jobId?: string }).jobId))

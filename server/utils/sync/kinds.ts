@@ -21,7 +21,7 @@ interface KindMap {
 
 // Listed in the order rows are inserted: what others refer to comes first.
 export const kindMaps: Record<RecordKind, KindMap> = {
-  zone: { table: 'zones', fixed: ['jobId'], keys: ['id', 'jobId', 'name', 'kind', 'designBaseDepthIn', 'areaSqFt', 'lengthFt', 'baseExtensionIn', 'notes'] },
+  zone: { table: 'zones', fixed: ['jobId'], keys: ['id', 'jobId', 'name', 'kind', 'designBaseDepthIn', 'areaSqFt', 'lengthFt', 'baseExtensionIn', 'notes', 'risers', 'crewDaysBid'] },
   material_estimate: { table: 'material_estimates', fixed: ['jobId'], keys: ['id', 'jobId', 'material', 'quantity', 'unit'], natural: ['jobId', 'material', 'unit'] },
   day_sheet: {
     table: 'day_sheets',
@@ -33,6 +33,7 @@ export const kindMaps: Record<RecordKind, KindMap> = {
   time_entry: { table: 'time_entries', fixed: ['daySheetId', 'crewMemberId'], keys: ['id', 'daySheetId', 'crewMemberId', 'hours'], natural: ['daySheetId', 'crewMemberId'] },
   material_drop: { table: 'material_drops', fixed: ['daySheetId'], keys: ['id', 'daySheetId', 'material', 'quantity', 'unit', 'stagedAt', 'ticketNumber'] },
   lift: { table: 'lifts', fixed: ['daySheetId', 'zoneId'], keys: ['id', 'daySheetId', 'zoneId', 'material', 'looseIn', 'compactedIn', 'passes', 'compactorClass', 'moistureNote'] },
+  zone_quantity: { table: 'zone_quantities', fixed: ['daySheetId', 'zoneId', 'stage'], keys: ['id', 'daySheetId', 'zoneId', 'stage', 'quantity', 'capLf'], natural: ['daySheetId', 'zoneId', 'stage'] },
 }
 
 // Each kind's record keys with their column names, worked out once.
