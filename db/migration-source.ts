@@ -8,6 +8,7 @@ import * as reviewSyncAudit from './migrations/20261201000004_review_sync_audit'
 import * as reviewListIndex from './migrations/20261202000001_review_list_index'
 import * as mailOutbox from './migrations/20261202040001_mail_outbox'
 import * as sessionsAndGuards from './migrations/20261203000001_sessions_and_guards'
+import * as dayBreak from './migrations/20261203130001_day_break'
 
 export const migrations: Record<string, Knex.Migration> = {
   '20261201000001_organisations_and_people.ts': organisationsAndPeople,
@@ -17,6 +18,7 @@ export const migrations: Record<string, Knex.Migration> = {
   '20261202000001_review_list_index.ts': reviewListIndex,
   '20261202040001_mail_outbox.ts': mailOutbox,
   '20261203000001_sessions_and_guards.ts': sessionsAndGuards,
+  '20261203130001_day_break.ts': dayBreak,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -170,7 +170,7 @@ export const useDaybookStore = defineStore('daybook', () => {
   async function logRainOut(input: { jobId: string, workDate: string, hoursLost: number, reason: string, crewMemberIds?: string[] }): Promise<DaySheetRecord> {
     const existing = sheetFor(input.jobId, input.workDate)
     const sheet = {
-      ...(existing ?? { id: crypto.randomUUID(), jobId: input.jobId, workDate: input.workDate }),
+      ...(existing ?? { id: crypto.randomUUID(), jobId: input.jobId, workDate: input.workDate, breakMinutes: 0 }),
       status: 'rain_out', hoursLost: input.hoursLost, hoursLostReason: input.reason,
     } as DaySheetRecord
     await save('day_sheet', sheet)

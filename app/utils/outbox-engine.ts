@@ -192,7 +192,7 @@ export class OutboxEngine {
       return
     }
     const state = result.status === 'conflict' ? 'conflict' : 'attention'
-    await idb.put('outbox', key, { ...entry, state, message: result.message, server: result.server, serverRevision: result.revision, record: entry.next ?? entry.record, next: undefined })
+    await idb.put('outbox', key, { ...entry, state, message: result.message, code: result.code, server: result.server, serverRevision: result.revision, record: entry.next ?? entry.record, next: undefined })
   }
 
   private async retryLater(keys: string[], state: 'queued' | 'sending', retryAfter?: number): Promise<'stop'> {
@@ -257,7 +257,7 @@ export class OutboxEngine {
 
   /** Conflict: send mine again, now based on the server's current revision. */
   async keepMine(key: string): Promise<void> {
-    await this.update(key, e => ({ ...e, state: 'queued', baseRevision: e.server ? e.serverRevision ?? null : null, server: undefined, message: undefined, attempts: 0, nextAttemptAt: 0 }))
+    await this.update(key, e => ({ ...e, state: 'queued', baseRevision: e.server ? e.serverRevision ?? null : null, server: undefined, message: undefined, code: undefined, attempts: 0, nextAttemptAt: 0 }))
     this.deps.changed()
   }
 
@@ -272,7 +272,7 @@ export class OutboxEngine {
   }
 
   async retry(key: string): Promise<void> {
-    await this.update(key, e => ({ ...e, state: 'queued', attempts: 0, nextAttemptAt: 0, message: undefined }))
+    await this.update(key, e => ({ ...e, state: 'queued', attempts: 0, nextAttemptAt: 0, message: undefined, code: undefined }))
     this.deps.changed()
   }
 

@@ -5,14 +5,14 @@ import type { ReviewDay } from '../../shared/schemas/review'
 import type { DayStatus, ReviewState } from '../../shared/utils/daybook'
 
 export interface DaySheetFields {
-  id: string, workDate: string, status: DayStatus, reviewState: ReviewState, startedAt: string | null, finishedAt: string | null,
+  id: string, workDate: string, status: DayStatus, reviewState: ReviewState, startedAt: string | null, finishedAt: string | null, breakMinutes: number,
   weatherConditions: string | null, rainIn: number | null, temperatureF: number | null, hoursLost: number, hoursLostReason: string | null,
   workDone: string | null, siteNotes: string | null, locateTicket: string | null,
 }
 
 /** A `day_sheets` row as mysql2 answers it: DATE as a string, DECIMAL as a number, TIME as HH:MM:SS. */
 interface DaySheetRow {
-  id: string, work_date: string, status: DayStatus, review_state: ReviewState, started_at: string | null, finished_at: string | null,
+  id: string, work_date: string, status: DayStatus, review_state: ReviewState, started_at: string | null, finished_at: string | null, break_minutes: number,
   weather_conditions: string | null, rain_in: number | null, temperature_f: number | null, hours_lost: number, hours_lost_reason: string | null,
   work_done: string | null, site_notes: string | null, locate_ticket: string | null,
 }
@@ -36,7 +36,7 @@ const hhmm = (t: string | null) => (t ? t.slice(0, 5) : null)
 /** The sheet's fields as both show them, times as HH:MM. */
 export function daySheetFields(s: DaySheetRow): DaySheetFields {
   return {
-    id: s.id, workDate: s.work_date, status: s.status, reviewState: s.review_state, startedAt: hhmm(s.started_at), finishedAt: hhmm(s.finished_at),
+    id: s.id, workDate: s.work_date, status: s.status, reviewState: s.review_state, startedAt: hhmm(s.started_at), finishedAt: hhmm(s.finished_at), breakMinutes: Number(s.break_minutes ?? 0),
     weatherConditions: s.weather_conditions, rainIn: s.rain_in, temperatureF: s.temperature_f, hoursLost: s.hours_lost,
     hoursLostReason: s.hours_lost_reason, workDone: s.work_done, siteNotes: s.site_notes, locateTicket: s.locate_ticket,
   }
@@ -46,8 +46,9 @@ export function daySheetFields(s: DaySheetRow): DaySheetFields {
 export async function loadDayParts(dayId: string): Promise<DayParts> {
   const db = useDb()
   const [crew, drops, lifts, photos] = await Promise.all([
-    db('time_entries as t').join('crew_members as c', 'c.id', 't.crew_member_id').where('t.day_sheet_id', dayId).orderBy('c.name')
-      .select('t.id', 't.crew_member_id as crewMemberId', 'c.name', 't.hours'),
+    // Hours as paid (the day's break taken off), beside the hours on site as typed.
+    db('time_entries as t').join('crew_members as c', 'c.id', 't.crew_member_id').join('day_sheets as s', 's.id', 't.day_sheet_id').where('t.day_sheet_id', dayId).orderBy('c.name')
+      .select('t.id', 't.crew_member_id as crewMemberId', 'c.name', db.raw(`${netHoursSql()} AS hours`), 't.hours as hoursOnSite'),
     db('material_drops').where('day_sheet_id', dayId).orderBy('created_at')
       .select('id', 'material', 'quantity', 'unit', 'staged_at as stagedAt', 'ticket_number as ticketNumber'),
     db('lifts as l').join('zones as z', 'z.id', 'l.zone_id').where('l.day_sheet_id', dayId).orderBy(['z.name', 'l.sequence'])

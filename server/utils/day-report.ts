@@ -58,6 +58,7 @@ export function dayReportFacts(report: DayReport, audience: 'office' | 'homeowne
     facts.push(['Review', day.reviewState === 'approved' ? 'Approved by the foreman' : 'Not yet approved by the foreman'])
     if (day.startedAt || day.finishedAt) facts.push(['On site', `${day.startedAt ?? '?'} to ${day.finishedAt ?? '?'}`])
     facts.push(['Crew and hours', report.crew.length ? `${report.crew.map(c => `${c.name} ${c.hours} h`).join(', ')} (total ${totalHours} h)` : 'None logged'])
+    if (day.breakMinutes > 0) facts.push(['Unpaid break', `${day.breakMinutes} min, taken off each person's hours`])
     if (day.hoursLost > 0) facts.push(['Hours lost', `${day.hoursLost} h${day.hoursLostReason ? `: ${day.hoursLostReason}` : ''}`])
   }
   else {

@@ -31,7 +31,7 @@ export async function jobsTable(member: Member, query: JobsTableQuery, jobId?: s
   const days = db('day_sheets as s').join('jobs as j', 'j.id', 's.job_id').where('j.organisation_id', member.organisationId)
     .groupBy('s.job_id').select('s.job_id', db.raw(`SUM(${worked}) AS worked`), db.raw(`SUM(${weather}) AS weather`), db.raw('MAX(s.work_date) AS last_date'))
   const hours = db('time_entries as t').join('day_sheets as s', 's.id', 't.day_sheet_id').join('jobs as j', 'j.id', 's.job_id')
-    .where('j.organisation_id', member.organisationId).groupBy('s.job_id').select('s.job_id', db.raw('SUM(t.hours) AS hours'))
+    .where('j.organisation_id', member.organisationId).groupBy('s.job_id').select('s.job_id', db.raw(`SUM(${netHoursSql()}) AS hours`))
   const used = 'COALESCE(d.worked, 0)'
   const sql = visibleJobs(member)
     .leftJoin(days.as('d'), 'd.job_id', 'jobs.id')

@@ -67,11 +67,12 @@ export interface ReviewPhotoView { id: string, subjectType: string, subjectId: s
 export interface ReviewDay {
   day: {
     id: string, jobId: string, workDate: string, status: string, reviewState: string, reviewedAt: string | null, reviewedByName: string | null
-    startedAt: string | null, finishedAt: string | null, weatherConditions: string | null, rainIn: number | null, temperatureF: number | null
+    startedAt: string | null, finishedAt: string | null, breakMinutes: number, weatherConditions: string | null, rainIn: number | null, temperatureF: number | null
     hoursLost: number, hoursLostReason: string | null, workDone: string | null, siteNotes: string | null, locateTicket: string | null, authorName: string | null
   }
   job: { id: string, name: string, siteAddress: string, customerName: string }
-  crew: { id: string, crewMemberId: string, name: string, hours: number }[]
+  /** `hours` as paid (the day's unpaid break taken off), `hoursOnSite` as typed. */
+  crew: { id: string, crewMemberId: string, name: string, hours: number, hoursOnSite: number }[]
   drops: { id: string, material: string, quantity: number, unit: string, stagedAt: string | null, ticketNumber: string | null }[]
   lifts: { id: string, zoneId: string, zoneName: string, zoneKind: string, designBaseDepthIn: number | null, baseExtensionIn: number | null, sequence: number, material: string, looseIn: number, compactedIn: number, passes: number, compactorClass: string, moistureNote: string | null, checks: LiftCheck[] }[]
   photos: ReviewPhotoView[]

@@ -259,13 +259,13 @@ describe('exports', () => {
     const response = await call('GET', '/api/exports/payroll?from=2030-03-01&to=2030-03-31', { cookie: office })
     expect(response.status).toBe(200)
     const lines = rowsOf(await response.text())
-    expect(lines[0]).toBe('Person,Role,Date,Job,Day,Hours')
+    expect(lines[0]).toBe('Person,Role,Date,Job,Day,Hours on site,Unpaid break (min),Hours')
     expect(lines.filter(l => l.startsWith('Crew 1,'))).toEqual([
-      'Crew 1,,2030-03-04,Alder steps,Full day,8',
-      'Crew 1,,2030-03-04,Hollis patio,Full day,8',
-      'Crew 1,,2030-03-05,Alder steps,Full day,8',
-      'Crew 1,,2030-03-05,Hollis patio,Half day,4',
-      'Crew 1,,2030-03-06,Hollis patio,Rain-out,0',
+      'Crew 1,,2030-03-04,Alder steps,Full day,8,0,8',
+      'Crew 1,,2030-03-04,Hollis patio,Full day,8,0,8',
+      'Crew 1,,2030-03-05,Alder steps,Full day,8,0,8',
+      'Crew 1,,2030-03-05,Hollis patio,Half day,4,0,4',
+      'Crew 1,,2030-03-06,Hollis patio,Rain-out,0,0,0',
     ])
     for (const cookie of [foreman, lead]) expect((await call('GET', '/api/exports/payroll?from=2030-03-01&to=2030-03-31', { cookie })).status).toBe(403)
   })

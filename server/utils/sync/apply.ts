@@ -7,9 +7,23 @@ import { loadContext, type BatchContext, type BatchProbe } from './context'
 import { fromRow, kindMaps, naturalKey, sameContent, toColumns } from './kinds'
 import { applyFlagAnswers } from './flag-answers'
 import type { BatchTransaction } from './writer'
+import { crewHoursProblem, type CrewHoursRule } from '../../../shared/utils/crew-hours'
+import type { DayStatus } from '../../../shared/utils/daybook'
 
 type Row = Record<string, unknown> & { id: string }
 type Write = { kind: SyncChange['kind'], id: string, columns: Record<string, unknown>, revision: number, op: 'insert' | 'update' | 'delete' }
+
+type SheetDay = { status: DayStatus, breakMinutes: number }
+const hoursMessages: Record<CrewHoursRule, string> = {
+  hours: 'Hours from 0.25 to 24',
+  zeroOnWorkedDay: '0 hours only on a rain-out or a day with no work',
+  breakOverHours: 'The break takes up all of these hours',
+}
+
+/** The day an entry's hours are checked against: its sheet as this batch sends it, or as the server has it. */
+function sheetDayOf(sheetId: string, days: Map<string, SheetDay>, sheet: Row | undefined): SheetDay | undefined {
+  return days.get(sheetId) ?? (sheet?.status ? { status: sheet.status as DayStatus, breakMinutes: Number(sheet.break_minutes ?? 0) } : undefined)
+}
 
 const lockedMessage = 'The foreman approved this day; ask them to reopen it to change it'
 
@@ -26,7 +40,7 @@ function placeOf(change: SyncChange, ctx: BatchContext, existingRow: Row | undef
 
 const planKinds = new Set<SyncChange['kind']>(['zone', 'material_estimate'])
 
-function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Row>, claimed: Set<string>, member: Member): { result: SyncResult, write?: Write } {
+function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Row>, claimed: Set<string>, member: Member, days: Map<string, SheetDay>): { result: SyncResult, write?: Write } {
   const { kind, record } = change
   const base = { kind, id: record.id }
   if (planKinds.has(kind) && member.role === 'crew_lead') {
@@ -52,6 +66,11 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   }
   if (change.kind === 'time_entry' && !ctx.crew.has(change.record.crewMemberId)) {
     return { result: { ...base, status: 'rejected', message: 'That person is not on the crew roster' } }
+  }
+  if (change.kind === 'time_entry' && change.op === 'upsert') {
+    const day = sheetDayOf(change.record.daySheetId, days, sheet)
+    const rule = day && crewHoursProblem(change.record.hours, day)
+    if (rule) return { result: { ...base, status: 'rejected', code: `time_entry.${rule}`, message: hoursMessages[rule] } }
   }
 
   if (change.op === 'delete') {
@@ -96,7 +115,8 @@ async function applyRecordChanges(tx: BatchTransaction, member: Member, changes:
   const ctx = await loadContext(tx, probe, member.role)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
-  const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member))
+  const days = new Map(changes.flatMap(c => c.kind === 'day_sheet' && c.op === 'upsert' ? [[c.record.id, { status: c.record.status, breakMinutes: c.record.breakMinutes }] as const] : []))
+  const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member, days))
   const writes = decisions.flatMap(d => d.write ? [d.write] : [])
   const now = new Date()
   const statements: Knex.QueryBuilder[] = []
