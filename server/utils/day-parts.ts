@@ -1,7 +1,7 @@
 // One day sheet as the foreman's review and the office's day report both read it: the sheet's own
 // fields, the crew's hours, the material drops, the lifts and the photos. Each caller scopes the day
 // to what its member may see before calling.
-import type { ReviewDay } from '../../shared/schemas/review'
+import type { ApprovalNote, ReviewDay } from '../../shared/schemas/review'
 import type { DayStatus, ReviewState } from '../../shared/utils/daybook'
 
 export interface DaySheetFields {
@@ -29,6 +29,7 @@ export interface DayParts {
   lifts: Omit<ReviewDay['lifts'][number], 'checks'>[]
   /** In the order taken; photos without a time first, by upload. */
   photos: DayPhotoRow[]
+  approvalNote: ApprovalNote | null
 }
 
 const hhmm = (t: string | null) => (t ? t.slice(0, 5) : null)
@@ -45,7 +46,7 @@ export function daySheetFields(s: DaySheetRow): DaySheetFields {
 /** The crew (by name), the drops (as logged), the lifts (by zone, then in order) and the photos of one day. */
 export async function loadDayParts(dayId: string): Promise<DayParts> {
   const db = useDb()
-  const [crew, drops, lifts, photos] = await Promise.all([
+  const [crew, drops, lifts, photos, decision] = await Promise.all([
     // Hours as paid (the day's break taken off), beside the hours on site as typed.
     db('time_entries as t').join('crew_members as c', 'c.id', 't.crew_member_id').join('day_sheets as s', 's.id', 't.day_sheet_id').where('t.day_sheet_id', dayId).orderBy('c.name')
       .select('t.id', 't.crew_member_id as crewMemberId', 'c.name', db.raw(`${netHoursSql()} AS hours`), 't.hours as hoursOnSite'),
@@ -56,6 +57,12 @@ export async function loadDayParts(dayId: string): Promise<DayParts> {
         'l.sequence', 'l.material', 'l.loose_in as looseIn', 'l.compacted_in as compactedIn', 'l.passes', 'l.compactor_class as compactorClass', 'l.moisture_note as moistureNote'),
     db('photos').where('day_sheet_id', dayId).orderBy([{ column: 'taken_at' }, { column: 'created_at' }])
       .select('id', 'subject_type as subjectType', 'subject_id as subjectId', 'caption', 'taken_at as takenAt', 'width', 'height', 'created_at as createdAt', 'thumb_key as thumbKey'),
+    // The last approval or reopening: its note stands only while the day is approved.
+    db('review_notes as n').leftJoin('users as u', 'u.id', 'n.author_id').where('n.day_sheet_id', dayId).whereIn('n.kind', ['approve', 'reopen'])
+      .orderBy([{ column: 'n.created_at', order: 'desc' }, { column: 'n.kind', order: 'desc' }]).first('n.kind', 'n.body', 'u.name as authorName', 'n.created_at as createdAt'),
   ])
-  return { crew, drops, lifts, photos }
+  const approvalNote = decision?.kind === 'approve' && decision.body
+    ? { body: String(decision.body), authorName: decision.authorName ?? null, createdAt: new Date(decision.createdAt).toISOString() }
+    : null
+  return { crew, drops, lifts, photos, approvalNote }
 }

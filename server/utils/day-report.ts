@@ -1,6 +1,7 @@
 // One day on one job as the office reads it: the day report e-mail, the printable day report and the
 // job's list of days all start from here.
 import type { Member } from './members'
+import type { ApprovalNote } from '../../shared/schemas/review'
 import { dayStatusLabels, weatherLine } from '../../shared/utils/daybook'
 import { photoUrls } from '../../shared/utils/photos'
 import { daySheetFields, loadDayParts, type DaySheetFields } from './day-parts'
@@ -12,6 +13,8 @@ export interface DayReport {
   drops: { material: string, quantity: number, unit: string, stagedAt: string | null, ticketNumber: string | null }[]
   lifts: { zone: string, sequence: number, material: string, looseIn: number, compactedIn: number, passes: number, compactorClass: string }[]
   photos: { id: string, caption: string | null, thumbKey: string, thumbUrl: string, displayUrl: string }[]
+  /** The foreman's note with the approval standing now. */
+  approvalNote: ApprovalNote | null
 }
 
 /** The whole day, or undefined when there is no such sheet (callers scope it to what a member may see). */
@@ -20,11 +23,12 @@ export async function loadDayReport(daySheetId: string): Promise<DayReport | und
   const row = await db('day_sheets as s').join('jobs as j', 'j.id', 's.job_id').where('s.id', daySheetId)
     .first('s.*', 'j.name as job_name', 'j.customer_name', 'j.site_address', 'j.organisation_id', 'j.foreman_id', 'j.customer_email', 'j.homeowner_updates')
   if (!row) return undefined
-  const { crew, drops, lifts, photos } = await loadDayParts(daySheetId)
+  const { crew, drops, lifts, photos, approvalNote } = await loadDayParts(daySheetId)
   return {
     job: { id: row.job_id, name: row.job_name, customerName: row.customer_name, siteAddress: row.site_address, organisationId: row.organisation_id, foremanId: row.foreman_id, customerEmail: row.customer_email, homeownerUpdates: Boolean(row.homeowner_updates) },
     day: daySheetFields(row),
     crew: crew.map(c => ({ name: c.name, hours: c.hours })),
+    approvalNote: row.review_state === 'approved' ? approvalNote : null,
     drops: drops.map(({ id: _id, ...d }) => d),
     lifts: lifts.map(l => ({ zone: l.zoneName, sequence: l.sequence, material: l.material, looseIn: l.looseIn, compactedIn: l.compactedIn, passes: l.passes, compactorClass: l.compactorClass })),
     // Untimed photos sit at their upload time here, not first as on the foreman's review. Photos sent
@@ -56,6 +60,7 @@ export function dayReportFacts(report: DayReport, audience: 'office' | 'homeowne
   ]
   if (audience === 'office') {
     facts.push(['Review', day.reviewState === 'approved' ? 'Approved by the foreman' : 'Not yet approved by the foreman'])
+    if (report.approvalNote) facts.push(['Foreman\'s note', report.approvalNote.body])
     if (day.startedAt || day.finishedAt) facts.push(['On site', `${day.startedAt ?? '?'} to ${day.finishedAt ?? '?'}`])
     facts.push(['Crew and hours', report.crew.length ? `${report.crew.map(c => `${c.name} ${c.hours} h`).join(', ')} (total ${totalHours} h)` : 'None logged'])
     if (day.breakMinutes > 0) facts.push(['Unpaid break', `${day.breakMinutes} min, taken off each person's hours`])
