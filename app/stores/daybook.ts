@@ -74,6 +74,7 @@ export const useDaybookStore = defineStore('daybook', () => {
   const flags = computed<SnapshotFlag[]>(() => meta.value?.reviewFlags ?? [])
   const flagsOfJob = (jobId: string) => flags.value.filter(f => f.jobId === jobId)
   const flagsOfDay = (sheetId: string) => flags.value.filter(f => f.daySheetId === sheetId)
+  const flagById = (flagId: string) => flags.value.find(f => f.id === flagId)
   const answersOf = (flagId: string) => (Object.values(records.value).filter(r => r.kind === 'flag_answer' && r.record.flagId === flagId).map(r => r.record) as unknown as FlagAnswerRecord[])
 
   /** An answer to a flag, with its photos, queued like any other change. */
@@ -204,7 +205,7 @@ export const useDaybookStore = defineStore('daybook', () => {
     saveEstimate: (r: MaterialEstimateRecord) => save('material_estimate', r),
     zonesOf, estimatesOf, zoneById, compactedBeforeIn,
     setCrewHours, remove, logRainOut, addPhotos,
-    flagsOfJob, flagsOfDay, answersOf, answerFlag,
+    flagsOfJob, flagsOfDay, flagById, answersOf, answerFlag,
     newId: () => crypto.randomUUID(),
   }
 })
