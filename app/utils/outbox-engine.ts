@@ -170,7 +170,7 @@ export class OutboxEngine {
     await idb.remove('meta', 'inflight')
     if (!response.ok) {
       const message = await errorMessage(response)
-      for (const key of batch.keys) await this.update(key, e => ({ ...e, state: 'attention', message }))
+      for (const key of batch.keys) await this.update(key, e => ({ ...e, state: 'attention', message, code: 'http' }))
       return 'done'
     }
     const answer = await response.json() as SyncAnswer
@@ -218,7 +218,7 @@ export class OutboxEngine {
       const stored = await idb.get<{ bytes: ArrayBuffer, type: string }>('photos', entry.id)
       const meta = entry.photo
       if (!stored || !meta) {
-        await this.update(entry.key, e => ({ ...e, state: 'attention', message: 'The photo is no longer on this phone' }))
+        await this.update(entry.key, e => ({ ...e, state: 'attention', message: 'The photo is no longer on this phone', code: 'photoGone' }))
         continue
       }
       const query = new URLSearchParams({ subjectType: meta.subjectType, subjectId: meta.subjectId, ...(meta.caption ? { caption: meta.caption } : {}), ...(meta.takenAt ? { takenAt: meta.takenAt } : {}) })

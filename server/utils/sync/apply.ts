@@ -9,6 +9,7 @@ import { applyFlagAnswers } from './flag-answers'
 import type { BatchTransaction } from './writer'
 import { crewHoursProblem, type CrewHoursRule } from '../../../shared/utils/crew-hours'
 import type { DayStatus } from '../../../shared/utils/daybook'
+import { refusal } from '../../../shared/utils/sync-refusals'
 
 type Row = Record<string, unknown> & { id: string }
 type Write = { kind: SyncChange['kind'], id: string, columns: Record<string, unknown>, revision: number, op: 'insert' | 'update' | 'delete' }
@@ -24,8 +25,6 @@ const hoursMessages: Record<CrewHoursRule, string> = {
 function sheetDayOf(sheetId: string, days: Map<string, SheetDay>, sheet: Row | undefined): SheetDay | undefined {
   return days.get(sheetId) ?? (sheet?.status ? { status: sheet.status as DayStatus, breakMinutes: Number(sheet.break_minutes ?? 0) } : undefined)
 }
-
-const lockedMessage = 'The foreman approved this day; ask them to reopen it to change it'
 
 /** Where a change belongs: its day sheet (existing or new in this batch) and job, or why it cannot go. */
 function placeOf(change: SyncChange, ctx: BatchContext, existingRow: Row | undefined, newSheets: Map<string, Row>) {
@@ -44,28 +43,28 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   const { kind, record } = change
   const base = { kind, id: record.id }
   if (planKinds.has(kind) && member.role === 'crew_lead') {
-    return { result: { ...base, status: 'rejected', message: 'Only the foreman or the office can change the job\'s plan' } }
+    return { result: { ...base, status: 'rejected', ...refusal('planOnly') } }
   }
   if (kind === 'zone' && change.op === 'delete') {
-    return { result: { ...base, status: 'rejected', message: 'Zones are removed by the office from the job setup' } }
+    return { result: { ...base, status: 'rejected', ...refusal('zonesByOffice') } }
   }
   const row = ctx.existing[kind].get(record.id)
   const { jobId, sheet } = placeOf(change, ctx, row, newSheets)
   if (!jobId || !ctx.visibleJobs.has(jobId)) {
-    return { result: { ...base, status: 'rejected', message: kind === 'day_sheet' || planKinds.has(kind) ? 'No such job' : 'The day sheet of this entry is not on the server' } }
+    return { result: { ...base, status: 'rejected', ...refusal(kind === 'day_sheet' || planKinds.has(kind) ? 'noSuchJob' : 'sheetMissing') } }
   }
   const server = row ? fromRow(kind, row) : null
   if (row && kindMaps[kind].fixed.some(key => JSON.stringify(server?.[key]) !== JSON.stringify((record as Record<string, unknown>)[key]))) {
-    return { result: { ...base, status: 'rejected', message: 'This entry cannot move to another day, job, zone or person' } }
+    return { result: { ...base, status: 'rejected', ...refusal('cannotMove') } }
   }
   if (sheet?.review_state === 'approved') {
-    return { result: { ...base, status: 'conflict', revision: row?.revision as number | undefined, server, message: lockedMessage } }
+    return { result: { ...base, status: 'conflict', revision: row?.revision as number | undefined, server, ...refusal('approved') } }
   }
   if (change.kind === 'lift' && ctx.zones.get(change.record.zoneId)?.job_id !== jobId) {
-    return { result: { ...base, status: 'rejected', message: 'That zone is not part of this job' } }
+    return { result: { ...base, status: 'rejected', ...refusal('wrongZone') } }
   }
   if (change.kind === 'time_entry' && !ctx.crew.has(change.record.crewMemberId)) {
-    return { result: { ...base, status: 'rejected', message: 'That person is not on the crew roster' } }
+    return { result: { ...base, status: 'rejected', ...refusal('notOnRoster') } }
   }
   if (change.kind === 'time_entry' && change.op === 'upsert') {
     const day = sheetDayOf(change.record.daySheetId, days, sheet)
@@ -74,7 +73,7 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
   }
 
   if (change.op === 'delete') {
-    if (!row) return { result: { ...base, status: 'unchanged', message: 'Already removed' } }
+    if (!row) return { result: { ...base, status: 'unchanged', ...refusal('alreadyRemoved') } }
     if (row.revision !== change.baseRevision) return { result: { ...base, status: 'conflict', revision: row.revision as number, server } }
     return { result: { ...base, status: 'applied' }, write: { kind, id: record.id, columns: {}, revision: 0, op: 'delete' } }
   }
@@ -87,12 +86,12 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
     return { result: { ...base, status: 'applied', revision }, write: { kind, id: record.id, columns, revision, op: 'update' } }
   }
   if (change.baseRevision !== null) {
-    return { result: { ...base, status: 'conflict', server: null, message: 'This entry was removed on the server' } }
+    return { result: { ...base, status: 'conflict', server: null, ...refusal('removedOnServer') } }
   }
   const natural = naturalKey(kind, record as Record<string, unknown>)
   if (natural && (ctx.naturalKeys.has(natural) || claimed.has(natural))) {
-    const message = change.kind === 'day_sheet' ? 'This job already has a day sheet for that date' : change.kind === 'time_entry' ? 'This person already has hours on this day' : 'The estimate already has this material in this unit'
-    return { result: { ...base, status: 'conflict', server: null, message } }
+    const code = change.kind === 'day_sheet' ? 'sheetExists' : change.kind === 'time_entry' ? 'hoursExist' : 'estimateExists'
+    return { result: { ...base, status: 'conflict', server: null, ...refusal(code) } }
   }
   if (natural) claimed.add(natural)
   if (change.kind === 'day_sheet') newSheets.set(record.id, { id: record.id, job_id: change.record.jobId, review_state: 'waiting' })
