@@ -1,7 +1,7 @@
 // A job's days and photos for the office's job page, and the exports built on them.
 import type { Member } from './members'
 import type { DayStatus, ReviewState } from '../../shared/utils/daybook'
-import { dayStatusLabels } from '../../shared/utils/daybook'
+import { dayStatusLabels, reviewStateLabels } from '../../shared/utils/daybook'
 import { photoUrls } from '../../shared/utils/photos'
 
 export interface JobDayRow {
@@ -45,8 +45,8 @@ export async function jobDays(member: Member, jobId: string): Promise<JobDayRow[
 
 export function jobDaysCsv(days: JobDayRow[]): string {
   return toCsv(
-    ['Date', 'Day', 'Review', 'Weather', 'Crew-days', 'Weather days', 'Crew on site', 'Person-hours', 'Lifts', 'Drops', 'Photos', 'Work done'],
-    days.map(d => [d.workDate, dayStatusLabels[d.status], d.reviewState, d.weatherConditions, d.crewDays, d.weatherDays, d.crew, d.personHours, d.lifts, d.drops, d.photos, d.workDone]),
+    ['Date', 'Day', 'Review', 'Weather', 'Crew-days', 'Weather days', 'Crew on site', 'Person-hours', 'Lifts', 'Drops', 'Photos', 'Work done', 'Day code', 'Review code'],
+    days.map(d => [d.workDate, dayStatusLabels[d.status], reviewStateLabels[d.reviewState], d.weatherConditions, d.crewDays, d.weatherDays, d.crew, d.personHours, d.lifts, d.drops, d.photos, d.workDone, d.status, d.reviewState]),
   )
 }
 
