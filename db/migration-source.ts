@@ -10,6 +10,7 @@ import * as mailOutbox from './migrations/20261202040001_mail_outbox'
 import * as sessionsAndGuards from './migrations/20261203000001_sessions_and_guards'
 import * as zoneQuantities from './migrations/20261203100001_zone_quantities'
 import * as snapshotBases from './migrations/20261203130001_snapshot_bases'
+import * as dayBreak from './migrations/20261203140001_day_break'
 
 export const migrations: Record<string, Knex.Migration> = {
   '20261201000001_organisations_and_people.ts': organisationsAndPeople,
@@ -21,6 +22,7 @@ export const migrations: Record<string, Knex.Migration> = {
   '20261203000001_sessions_and_guards.ts': sessionsAndGuards,
   '20261203100001_zone_quantities.ts': zoneQuantities,
   '20261203130001_snapshot_bases.ts': snapshotBases,
+  '20261203140001_day_break.ts': dayBreak,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -37,3 +37,18 @@ export async function freePort(): Promise<number> {
     })
   })
 }
+
+/**
+ * Whether Tamp itself already answers at this address: its health route's own shape (`ok` and
+ * `uploads`), not just any program holding the port.
+ */
+export async function tampAnswersAt(url: string): Promise<boolean> {
+  try {
+    const response = await fetch(`${url}/api/health`, { signal: AbortSignal.timeout(2000) })
+    const body = await response.json() as { ok?: unknown, uploads?: unknown }
+    return typeof body.ok === 'boolean' && typeof body.uploads === 'object' && body.uploads !== null
+  }
+  catch {
+    return false
+  }
+}

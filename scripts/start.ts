@@ -5,11 +5,16 @@ import { mailSettings, root } from './config'
 import { ensureBuild } from './build'
 import { startMailCatcher } from './mail-catcher'
 import { prepareApp, printSignIns } from './prepare'
-import { failInOneLine, waitForHealth } from './run-helpers'
+import { failInOneLine, tampAnswersAt, waitForHealth } from './run-helpers'
 
 const port = Number(process.env.PORT || 3000)
 
 async function main(): Promise<void> {
+  // A second `npm start` finds the first one: say where it is rather than fail on a taken port.
+  if (await tampAnswersAt(`http://127.0.0.1:${port}`)) {
+    console.log(`Tamp is already running at http://localhost:${port}: open it there, or stop it (Ctrl+C in its terminal) before starting it again.`)
+    return
+  }
   // Links in mail point here unless NUXT_APP_URL says otherwise (server/utils/app-origin.ts).
   const env = await prepareApp({ PORT: String(port), NUXT_APP_URL: process.env.NUXT_APP_URL || `http://localhost:${port}` })
   ensureBuild()

@@ -80,6 +80,7 @@ export const useDaybookStore = defineStore('daybook', () => {
   const flags = computed<SnapshotFlag[]>(() => meta.value?.reviewFlags ?? [])
   const flagsOfJob = (jobId: string) => flags.value.filter(f => f.jobId === jobId)
   const flagsOfDay = (sheetId: string) => flags.value.filter(f => f.daySheetId === sheetId)
+  const flagById = (flagId: string) => flags.value.find(f => f.id === flagId)
   const answersOf = (flagId: string) => (Object.values(records.value).filter(r => r.kind === 'flag_answer' && r.record.flagId === flagId).map(r => r.record) as unknown as FlagAnswerRecord[])
 
   /** An answer to a flag, with its photos, queued like any other change. */
@@ -87,7 +88,7 @@ export const useDaybookStore = defineStore('daybook', () => {
     const { flagAnswerRecord } = await import('~~/shared/schemas/daybook')
     const result = flagAnswerRecord.safeParse({ id: crypto.randomUUID(), flagId, body })
     if (!result.success) throw new Error(result.error.issues[0]?.message ?? 'Some fields need a look')
-    await outbox.saveRecord('flag_answer', result.data, 'upsert', `Answer: ${result.data.body.slice(0, 40)}`)
+    await outbox.saveRecord('flag_answer', result.data, 'upsert', t('outboxLabel.answer', { text: result.data.body.slice(0, 40) }))
     if (files.length) await addPhotos(files, { type: 'review_note', id: result.data.id }, undefined, daySheetId)
   }
 
@@ -153,14 +154,16 @@ export const useDaybookStore = defineStore('daybook', () => {
     return result.data as { id: string } & Record<string, unknown>
   }
 
+  // What the outbox list calls each change, in the crew lead's language as they saved it.
+  const { t } = useNuxtApp().$i18n
   const labels: Record<RecordKind, (r: Record<string, unknown>) => string> = {
-    zone: (r: Record<string, unknown>) => `Zone: ${r.name}`,
-    material_estimate: (r: Record<string, unknown>) => `Estimate: ${r.quantity} ${r.unit} ${r.material}`,
-    day_sheet: (r: Record<string, unknown>) => `Day ${r.workDate}`,
-    time_entry: (r: Record<string, unknown>) => `Hours: ${roster.value.find(p => p.id === r.crewMemberId)?.name ?? 'crew'} ${r.hours} h`,
-    material_drop: (r: Record<string, unknown>) => `Drop: ${r.quantity} ${r.unit} ${r.material}`,
-    lift: (r: Record<string, unknown>) => `Lift: ${r.compactedIn} in ${r.material}`,
-    zone_quantity: (r: Record<string, unknown>) => `Built: ${r.quantity} ${r.stage}`,
+    zone: r => t('outboxLabel.zone', { name: String(r.name) }),
+    material_estimate: r => t('outboxLabel.material_estimate', { quantity: String(r.quantity), unit: String(r.unit), material: String(r.material) }),
+    day_sheet: r => t('outboxLabel.day_sheet', { date: String(r.workDate) }),
+    time_entry: r => t('outboxLabel.time_entry', { name: roster.value.find(p => p.id === r.crewMemberId)?.name ?? t('outboxLabel.crew'), hours: String(r.hours) }),
+    material_drop: r => t('outboxLabel.material_drop', { quantity: String(r.quantity), unit: String(r.unit), material: String(r.material) }),
+    lift: r => t('outboxLabel.lift', { inches: String(r.compactedIn), material: String(r.material) }),
+    zone_quantity: r => t('outboxLabel.zone_quantity', { quantity: String(r.quantity), stage: String(r.stage) }),
   }
   const save = async (kind: RecordKind, record: unknown) => {
     const clean = await validated(kind, record)
@@ -169,7 +172,7 @@ export const useDaybookStore = defineStore('daybook', () => {
 
   async function remove(kind: RecordKind, id: string): Promise<void> {
     const local = records.value[`${kind}:${id}`]
-    if (local) await outbox.saveRecord(kind, { ...local.record, id }, 'delete', `Removed: ${labels[kind](local.record)}`)
+    if (local) await outbox.saveRecord(kind, { ...local.record, id }, 'delete', t('outboxLabel.removed', { what: labels[kind](local.record) }))
   }
 
   async function setCrewHours(sheetId: string, wanted: { crewMemberId: string, hours: number }[]): Promise<void> {
@@ -185,7 +188,7 @@ export const useDaybookStore = defineStore('daybook', () => {
   async function logRainOut(input: { jobId: string, workDate: string, hoursLost: number, reason: string, crewMemberIds?: string[] }): Promise<DaySheetRecord> {
     const existing = sheetFor(input.jobId, input.workDate)
     const sheet = {
-      ...(existing ?? { id: crypto.randomUUID(), jobId: input.jobId, workDate: input.workDate }),
+      ...(existing ?? { id: crypto.randomUUID(), jobId: input.jobId, workDate: input.workDate, breakMinutes: 0 }),
       status: 'rain_out', hoursLost: input.hoursLost, hoursLostReason: input.reason,
     } as DaySheetRecord
     await save('day_sheet', sheet)
@@ -205,7 +208,7 @@ export const useDaybookStore = defineStore('daybook', () => {
       await outbox.savePhoto(id, shrunk.bytes, {
         subjectType: subject.type, subjectId: subject.id, daySheetId, caption: caption || undefined,
         takenAt: new Date(file.lastModified || Date.now()).toISOString(), type: shrunk.type, size: shrunk.bytes.byteLength, width: shrunk.width, height: shrunk.height,
-      }, `Photo${caption ? `: ${caption}` : ''}`)
+      }, caption ? t('outboxLabel.photoCaption', { caption }) : t('outboxLabel.photo'))
     }
   }
 
@@ -222,7 +225,7 @@ export const useDaybookStore = defineStore('daybook', () => {
     builtSoFar,
     zonesOf, estimatesOf, zoneById, compactedBeforeIn,
     setCrewHours, remove, logRainOut, addPhotos,
-    flagsOfJob, flagsOfDay, answersOf, answerFlag,
+    flagsOfJob, flagsOfDay, flagById, answersOf, answerFlag,
     newId: () => crypto.randomUUID(),
   }
 })

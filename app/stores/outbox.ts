@@ -11,6 +11,8 @@ const timerMs = 30_000
 export const useOutboxStore = defineStore('outbox', () => {
   const entries = ref<OutboxEntry[]>([])
   const status = ref<OutboxStatus>('idle')
+  /** The connection as the browser reports it, kept current by its online and offline events. */
+  const online = ref(true)
   const progress = ref<OutboxProgress>({ records: { done: 0, total: 0 }, bytes: { done: 0, total: 0 } })
   const session = useUserSession()
   let engine: OutboxEngine | undefined
@@ -50,8 +52,15 @@ export const useOutboxStore = defineStore('outbox', () => {
   function start(): void {
     if (started || import.meta.server) return
     started = true
-    window.addEventListener('online', () => void sendNow())
-    window.addEventListener('offline', () => void refresh().then(() => { status.value = 'offline' }))
+    online.value = navigator.onLine
+    window.addEventListener('online', () => {
+      online.value = true
+      void sendNow()
+    })
+    window.addEventListener('offline', () => {
+      online.value = false
+      void refresh().then(() => { status.value = 'offline' })
+    })
     document.addEventListener('visibilitychange', () => {
       if (document.visibilityState === 'visible') void refresh().then(sendNow)
     })
@@ -81,7 +90,7 @@ export const useOutboxStore = defineStore('outbox', () => {
   const stateOf = (key: string) => entries.value.find(e => e.key === key)?.state
 
   return {
-    entries: skipHydrate(entries), status: skipHydrate(status), progress: skipHydrate(progress), waitingCount,
+    entries: skipHydrate(entries), status: skipHydrate(status), online: skipHydrate(online), progress: skipHydrate(progress), waitingCount,
     start, refresh, sendNow, saveRecord, savePhoto, stateOf,
     keepMine: act('keepMine'), takeServer: act('takeServer'), retry: act('retry'), discard: act('discard'),
   }

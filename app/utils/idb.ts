@@ -8,6 +8,8 @@ const names = {
   photos: ['tamp-photos', 'bytes'],
   records: ['tamp-records', 'records'],
   meta: ['tamp-meta', 'meta'],
+  /** What a form holds as it is typed, until it is saved to the outbox (useDraft). */
+  drafts: ['tamp-drafts', 'drafts'],
 } as const
 export type StoreName = keyof typeof names
 

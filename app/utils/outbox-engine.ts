@@ -185,7 +185,7 @@ export class OutboxEngine {
     await idb.remove('meta', 'inflight')
     if (!response.ok) {
       const message = await errorMessage(response)
-      for (const key of batch.keys) await this.update(key, e => ({ ...e, state: 'attention', message }))
+      for (const key of batch.keys) await this.update(key, e => ({ ...e, state: 'attention', message, code: 'http' }))
       return 'done'
     }
     const answer = await response.json() as SyncAnswer
@@ -207,7 +207,7 @@ export class OutboxEngine {
       return
     }
     const state = result.status === 'conflict' ? 'conflict' : 'attention'
-    await idb.put('outbox', key, { ...entry, state, message: result.message, server: result.server, serverRevision: result.revision, record: entry.next ?? entry.record, next: undefined })
+    await idb.put('outbox', key, { ...entry, state, message: result.message, code: result.code, server: result.server, serverRevision: result.revision, record: entry.next ?? entry.record, next: undefined })
   }
 
   private async retryLater(keys: string[], state: 'queued' | 'sending', retryAfter?: number): Promise<'stop'> {
@@ -233,7 +233,7 @@ export class OutboxEngine {
       const stored = await idb.get<{ bytes: ArrayBuffer, type: string }>('photos', entry.id)
       const meta = entry.photo
       if (!stored || !meta) {
-        await this.update(entry.key, e => ({ ...e, state: 'attention', message: 'The photo is no longer on this phone' }))
+        await this.update(entry.key, e => ({ ...e, state: 'attention', message: 'The photo is no longer on this phone', code: 'photoGone' }))
         continue
       }
       const query = new URLSearchParams({ subjectType: meta.subjectType, subjectId: meta.subjectId, ...(meta.caption ? { caption: meta.caption } : {}), ...(meta.takenAt ? { takenAt: meta.takenAt } : {}) })
@@ -272,7 +272,7 @@ export class OutboxEngine {
 
   /** Conflict: send mine again, now based on the server's current revision. */
   async keepMine(key: string): Promise<void> {
-    await this.update(key, e => ({ ...e, state: 'queued', baseRevision: e.server ? e.serverRevision ?? null : null, server: undefined, message: undefined, attempts: 0, nextAttemptAt: 0 }))
+    await this.update(key, e => ({ ...e, state: 'queued', baseRevision: e.server ? e.serverRevision ?? null : null, server: undefined, message: undefined, code: undefined, attempts: 0, nextAttemptAt: 0 }))
     this.deps.changed()
   }
 
@@ -287,7 +287,7 @@ export class OutboxEngine {
   }
 
   async retry(key: string): Promise<void> {
-    await this.update(key, e => ({ ...e, state: 'queued', attempts: 0, nextAttemptAt: 0, message: undefined }))
+    await this.update(key, e => ({ ...e, state: 'queued', attempts: 0, nextAttemptAt: 0, message: undefined, code: undefined }))
     this.deps.changed()
   }
 

@@ -34,6 +34,8 @@ export interface OutboxEntry {
   attempts: number
   nextAttemptAt: number
   message?: string
+  /** The server's stable name for a refusal, translated on the phone (`server.<code>`); `message` is its English text. */
+  code?: string
   server?: Record<string, unknown> | null
   serverRevision?: number
 }

@@ -8,6 +8,14 @@ function caseOf(part: 'worked' | 'weather', column: string): string {
   return `(CASE ${column} ${arms} ELSE 0 END)`
 }
 
+/**
+ * A time entry's hours with its day's unpaid break taken off, never below 0 (netHours in
+ * shared/utils/crew-hours.ts, as SQL): what person-hours, payroll and reports count.
+ */
+export function netHoursSql(hours = 't.hours', breakMinutes = 's.break_minutes'): string {
+  return `GREATEST(ROUND(${hours} - ${breakMinutes} / 60, 2), 0)`
+}
+
 /** SQL expressions for one day sheet row; sum them in a GROUP BY. `column` is the sheet's status column. */
 export function crewDaySql(column = 'day_sheets.status'): { worked: string, weather: string } {
   return { worked: caseOf('worked', column), weather: caseOf('weather', column) }

@@ -1,7 +1,7 @@
 // A job's days and photos for the office's job page, and the exports built on them.
 import type { Member } from './members'
 import type { DayStatus, ReviewState } from '../../shared/utils/daybook'
-import { dayStatusLabels } from '../../shared/utils/daybook'
+import { dayStatusLabels, reviewStateLabels } from '../../shared/utils/daybook'
 import { photoUrls } from '../../shared/utils/photos'
 
 export interface JobDayRow {
@@ -27,7 +27,7 @@ export async function jobDays(member: Member, jobId: string): Promise<JobDayRow[
   const { worked, weather } = crewDaySql('s.status')
   const count = (table: string, expression = 'COUNT(*)') => db(table).where('job_id', jobId).groupBy('day_sheet_id').select('day_sheet_id', db.raw(`${expression} AS n`))
   const entries = db('time_entries as t').join('day_sheets as d', 'd.id', 't.day_sheet_id').where('d.job_id', jobId)
-    .groupBy('t.day_sheet_id').select('t.day_sheet_id', db.raw('COUNT(*) AS crew'), db.raw('SUM(t.hours) AS hours'))
+    .groupBy('t.day_sheet_id').select('t.day_sheet_id', db.raw('COUNT(*) AS crew'), db.raw(`SUM(${netHoursSql('t.hours', 'd.break_minutes')}) AS hours`))
   const rows = await db('day_sheets as s').where('s.job_id', jobId)
     .leftJoin(entries.as('e'), 'e.day_sheet_id', 's.id')
     .leftJoin(count('lifts').as('l'), 'l.day_sheet_id', 's.id')
@@ -45,8 +45,8 @@ export async function jobDays(member: Member, jobId: string): Promise<JobDayRow[
 
 export function jobDaysCsv(days: JobDayRow[]): string {
   return toCsv(
-    ['Date', 'Day', 'Review', 'Weather', 'Crew-days', 'Weather days', 'Crew on site', 'Person-hours', 'Lifts', 'Drops', 'Photos', 'Work done'],
-    days.map(d => [d.workDate, dayStatusLabels[d.status], d.reviewState, d.weatherConditions, d.crewDays, d.weatherDays, d.crew, d.personHours, d.lifts, d.drops, d.photos, d.workDone]),
+    ['Date', 'Day', 'Review', 'Weather', 'Crew-days', 'Weather days', 'Crew on site', 'Person-hours', 'Lifts', 'Drops', 'Photos', 'Work done', 'Day code', 'Review code'],
+    days.map(d => [d.workDate, dayStatusLabels[d.status], reviewStateLabels[d.reviewState], d.weatherConditions, d.crewDays, d.weatherDays, d.crew, d.personHours, d.lifts, d.drops, d.photos, d.workDone, d.status, d.reviewState]),
   )
 }
 
@@ -72,8 +72,10 @@ export async function payrollCsv(organisationId: string, from: string, to: strin
     .join('crew_members as c', 'c.id', 't.crew_member_id')
     .where('j.organisation_id', organisationId).whereBetween('s.work_date', [from, to])
     .orderBy('c.name').orderBy('c.id').orderBy('s.work_date').orderBy('j.name')
-    .select('c.name', 'c.trade_role', 's.work_date', 'j.name as job', 's.status', 't.hours')
-  return toCsv(['Person', 'Role', 'Date', 'Job', 'Day', 'Hours'], rows.map(r => [r.name, r.trade_role, r.work_date, r.job, dayStatusLabels[r.status as DayStatus], Number(r.hours)]))
+    .select('c.name', 'c.trade_role', 's.work_date', 'j.name as job', 's.status', 't.hours', 's.break_minutes', useDb().raw(`${netHoursSql()} AS net`))
+  // Hours is what is paid: the hours on site less the day's unpaid break.
+  return toCsv(['Person', 'Role', 'Date', 'Job', 'Day', 'Hours on site', 'Unpaid break (min)', 'Hours'],
+    rows.map(r => [r.name, r.trade_role, r.work_date, r.job, dayStatusLabels[r.status as DayStatus], Number(r.hours), Number(r.break_minutes), Number(r.net)]))
 }
 
 /** The printable job report: the jobs-table figures, the zones, the estimate and every day. */

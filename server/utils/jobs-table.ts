@@ -4,6 +4,7 @@ import type { Member } from './members'
 import type { JobsTableQuery, JobsTableRow, JobsTableSort } from '../../shared/schemas/jobs'
 import { firstOpenDay, projectedFinish, todayIn } from '../../shared/utils/work-calendar'
 import { withForecasts } from './job-progress'
+import { bidMarkLabels, jobStatusLabels } from '../../shared/utils/daybook'
 
 const round = (n: number, places = 2) => Math.round(n * 10 ** places) / 10 ** places
 
@@ -32,7 +33,7 @@ export async function jobsTable(member: Member, query: JobsTableQuery, jobId?: s
   const days = db('day_sheets as s').join('jobs as j', 'j.id', 's.job_id').where('j.organisation_id', member.organisationId)
     .groupBy('s.job_id').select('s.job_id', db.raw(`SUM(${worked}) AS worked`), db.raw(`SUM(${weather}) AS weather`), db.raw('MAX(s.work_date) AS last_date'))
   const hours = db('time_entries as t').join('day_sheets as s', 's.id', 't.day_sheet_id').join('jobs as j', 'j.id', 's.job_id')
-    .where('j.organisation_id', member.organisationId).groupBy('s.job_id').select('s.job_id', db.raw('SUM(t.hours) AS hours'))
+    .where('j.organisation_id', member.organisationId).groupBy('s.job_id').select('s.job_id', db.raw(`SUM(${netHoursSql()}) AS hours`))
   const used = 'COALESCE(d.worked, 0)'
   const sql = visibleJobs(member)
     .leftJoin(days.as('d'), 'd.job_id', 'jobs.id')
@@ -86,8 +87,9 @@ export async function jobsTable(member: Member, query: JobsTableQuery, jobId?: s
 /** The jobs table as CSV rows, in the order of the screen. */
 export function jobsTableCsv(rows: JobsTableRow[]): string {
   return toCsv(
-    ['Job', 'Customer', 'Site', 'Status', 'Foreman', 'Start date', 'Crew-days bid', 'Crew-days used', 'Weather days', 'Share of bid used (%)', 'Person-hours bid', 'Person-hours used', 'Projected finish', 'Over/under bid'],
-    rows.map(r => [r.name, r.customerName, r.siteAddress, r.status, r.foremanName, r.startDate, r.crewDaysBid, r.crewDaysUsed, r.weatherDays, round(r.bidShareUsed * 100, 1), r.personHoursBid, r.personHoursUsed, r.projectedFinish, r.mark]),
+    // The screen's words for the status and the mark, and the stable codes at the end for spreadsheets that match on them.
+    ['Job', 'Customer', 'Site', 'Status', 'Foreman', 'Start date', 'Crew-days bid', 'Crew-days used', 'Weather days', 'Share of bid used (%)', 'Person-hours bid', 'Person-hours used', 'Projected finish', 'Against the bid', 'Status code', 'Bid code'],
+    rows.map(r => [r.name, r.customerName, r.siteAddress, jobStatusLabels[r.status], r.foremanName, r.startDate, r.crewDaysBid, r.crewDaysUsed, r.weatherDays, round(r.bidShareUsed * 100, 1), r.personHoursBid, r.personHoursUsed, r.projectedFinish, bidMarkLabels[r.mark], r.status, r.mark]),
   )
 }
 

@@ -2,7 +2,7 @@
 // of times (the table's unique key drops repeats) and sent by a timer (server/plugins/mail-outbox.ts),
 // never inside a request, so a relay that is down delays a message but never a sync or a save.
 import type { OutgoingMail } from './mail'
-import { dayReportFacts, loadDayReport, type DayReport } from './day-report'
+import { dayReportFacts, loadDayReport, readableDate, type DayReport } from './day-report'
 import { dayStatusLabels, weatherLine } from '../../shared/utils/daybook'
 import { calendarDateIn } from '../../shared/utils/work-calendar'
 import { retryDelayMs } from './mail-retry'
@@ -116,7 +116,9 @@ async function composeMessage(row: OutboxRow): Promise<OutgoingMail | undefined>
   if (!to.length) return undefined
   const thumbs = await thumbnails(report)
   const { text, html } = renderMail({
-    heading: `${report.job.name}: ${dayStatusLabels[report.day.status].toLowerCase()} on ${report.day.workDate}`,
+    heading: `${report.job.name}: ${dayStatusLabels[report.day.status].toLowerCase()} on ${readableDate(report.day.workDate)}`,
+    // The office goes from the message to the day itself (the homeowner has no sign-in).
+    ...(row.audience === 'office' && configuredAppUrl() ? { action: { label: 'Open the day in Tamp', url: `${configuredAppUrl()}/review/${report.day.id}` } } : {}),
     paragraphs: row.audience === 'homeowner' ? [`Here is what the crew did at ${report.job.siteAddress} today.`] : [],
     facts: dayReportFacts(report, row.audience),
     images: thumbs.map(t => ({ cid: t.cid, alt: t.alt })),

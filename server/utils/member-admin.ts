@@ -14,6 +14,8 @@ export async function updateMember(office: Member, membershipId: string, change:
   return await useDb().transaction(async (trx) => {
     const target = await trx('memberships').where({ id: membershipId, organisation_id: office.organisationId }).forUpdate().first()
     if (!target) throw createError({ statusCode: 404, statusMessage: 'No such member' })
+    // Turning one's own access off would lock the person out mid-task: another office member does it.
+    if (target.user_id === office.userId && change.active === false) throw createError({ statusCode: 409, statusMessage: 'You cannot deactivate your own account' })
     const losesOffice = target.role === 'office' && target.active && (change.active === false || (change.role && change.role !== 'office'))
     if (losesOffice) {
       const offices = await trx('memberships').where({ organisation_id: office.organisationId, role: 'office', active: true }).forUpdate().count({ n: '*' }).first()

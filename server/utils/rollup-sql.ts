@@ -1,7 +1,7 @@
 // The statements behind a job's rollup. Every figure is a SQL aggregate: no day, entry or lift row
 // is loaded into JavaScript. Kept apart from the route so that the tests and `npm run bench:rollup`
 // run the very same SQL bare against the database.
-import { crewDaySql } from './crew-days'
+import { crewDaySql, netHoursSql } from './crew-days'
 
 export interface Statement { sql: string, bindings: (string | number)[] }
 
@@ -30,7 +30,7 @@ export function rollupStatements(jobId: string, visible?: Statement): { totals: 
           COALESCE(SUM(d.hours_lost), 0) AS hoursLost,
           MIN(d.work_date) AS firstDate, MAX(d.work_date) AS lastDate,
           COALESCE(DATEDIFF(MAX(d.work_date), MIN(d.work_date)) + 1, 0) AS calendarDays,
-          (SELECT COALESCE(SUM(te.hours), 0) FROM time_entries te JOIN day_sheets s ON s.id = te.day_sheet_id WHERE s.job_id = j.id) AS personHours
+          (SELECT COALESCE(SUM(${netHoursSql('te.hours', 's.break_minutes')}), 0) FROM time_entries te JOIN day_sheets s ON s.id = te.day_sheet_id WHERE s.job_id = j.id) AS personHours
         FROM jobs j LEFT JOIN day_sheets d ON d.job_id = j.id
         WHERE j.id = ?${visible ? ` AND j.id IN (${visible.sql})` : ''}
         GROUP BY j.id, j.crew_days_bid, j.person_hours_bid`,

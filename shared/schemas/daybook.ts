@@ -3,6 +3,7 @@ import { z } from 'zod'
 import { dayStatuses, zoneKinds } from '../utils/daybook'
 import { productionStages } from '../utils/trade-data-production'
 import { boundedDate } from './dates'
+import { breakMinutesMax, crewHoursMin } from '../utils/crew-hours'
 
 // Lower case, as the database compares them: one record whatever case its id is sent in.
 const id = z.uuid('Not a valid id').transform(value => value.toLowerCase())
@@ -23,6 +24,8 @@ export const daySheetRecord = z.strictObject({
   status: z.enum(dayStatuses, { error: 'Choose full day, half day, rain-out or no work' }),
   startedAt: clock,
   finishedAt: clock,
+  // Unpaid break (lunch), taken off every crew member's hours on site.
+  breakMinutes: z.number({ error: 'Enter the break in minutes' }).int('Whole minutes only').min(0, 'At least 0 minutes').max(breakMinutesMax, `At most ${breakMinutesMax} minutes`).default(0),
   weatherConditions: optionalText(60),
   rainIn: number(0, 20, 'in').nullable().optional(),
   temperatureF: number(-40, 130, '°F').nullable().optional(),
@@ -42,8 +45,9 @@ export const timeEntryRecord = z.strictObject({
   id,
   daySheetId: id,
   crewMemberId: id,
-  // 0 hours: on site for a rain-out and sent home (counted as present, not as person-hours).
-  hours: number(0, 24, 'hours'),
+  // 0 hours: on site for a rain-out and sent home (counted as present, not as person-hours); the
+  // day's status decides whether 0 is allowed (crewHoursProblem, checked on the phone and in the sync).
+  hours: number(0, 24, 'hours').refine(hours => hours === 0 || hours >= crewHoursMin, `Hours from ${crewHoursMin} to 24`),
 })
 
 export const materialDropRecord = z.strictObject({
@@ -176,6 +180,8 @@ export interface SyncResult {
   /** The server's version, so the crew lead can choose between theirs and the server's. */
   server?: Record<string, unknown> | null
   message?: string
+  /** A stable name for the refusal (`time_entry.zeroOnWorkedDay`), which the phone translates (`server.<code>`). */
+  code?: string
 }
 export interface SyncAnswer { results: SyncResult[] }
 

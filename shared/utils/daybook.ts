@@ -27,6 +27,12 @@ export function weatherLine(day: { weatherConditions: string | null, temperature
 export const reviewStates = ['waiting', 'approved', 'flagged', 'reopened'] as const
 export type ReviewState = (typeof reviewStates)[number]
 
+/** The foreman's review of a day in the words of the Review screen (CSV and reports use them too). */
+export const reviewStateLabels: Record<ReviewState, string> = { waiting: 'Waiting for review', approved: 'Approved', flagged: 'Flagged', reopened: 'Reopened' }
+
+/** A job against its bid in the words of the jobs table. */
+export const bidMarkLabels = { over: 'Over', under: 'Within' } as const
+
 /**
  * How a day counts against a bid counted in crew-days (common practice in the trade):
  * a full day uses 1 crew-day, a half day 0.5; a rain-out uses none and counts as 1 weather day;

@@ -21,6 +21,7 @@ export const snapshotLists = {
   lifts: { kind: 'lift' },
   flagAnswers: { kind: 'flag_answer' },
   zoneQuantities: { kind: 'zone_quantity' },
+  builtEarlier: { whole: true },
 } as const satisfies Record<SnapshotListName, SnapshotListRule>
 
 export type RecordListName = { [K in SnapshotListName]: (typeof snapshotLists)[K] extends { kind: SyncKind } ? K : never }[SnapshotListName]

@@ -3,13 +3,13 @@
 // lead's language.
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { url } from '@nuxt/test-utils/e2e'
-import type { Browser, Page } from 'playwright-core'
+import type { Browser } from 'playwright-core'
 import { useBuiltServer } from '../support/server'
-import { createCompany, fixturePassword, type FixtureCompany } from '../support/fixtures'
+import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { addZoneAndCrew } from '../support/daybook'
 import { testDb } from '../support/db'
-import { launchBrowser, phoneContext, signInInBrowser, waitForApp } from '../support/browser'
+import { launchBrowser } from '../support/browser'
+import { openDaySheet } from '../support/day-sheet'
 import en from '../../i18n/locales/en.json'
 import es from '../../i18n/locales/es.json'
 
@@ -37,15 +37,7 @@ afterAll(async () => {
   await browser?.close()
 })
 
-async function daySheet(locale: 'en' | 'es'): Promise<Page> {
-  await testDb()('users').where({ id: company.lead.userId }).update({ locale })
-  const context = await phoneContext(browser, { baseURL: url('/').replace(/\/$/, ''), timezoneId: 'UTC' })
-  const page = await context.newPage()
-  await signInInBrowser(page, company.lead.email, fixturePassword)
-  await page.goto(`/day/${company.jobId}/${today}`)
-  await waitForApp(page)
-  return page
-}
+const daySheet = (locale: 'en' | 'es') => openDaySheet(browser, company, today, locale)
 
 describe('the day sheet\'s checks on the phone', () => {
   for (const [locale, words] of [['en', en], ['es', es]] as const) {

@@ -162,6 +162,11 @@ describe('a flag from the foreman to the crew lead\'s phone and back', () => {
     await foreman.locator(`[data-testid="review-flag-${flagId}"]`).getByText('Resolved flag on Front walk lift 1: Compact it again').waitFor()
     await expect.poll(() => foreman.getByTestId('review-state').innerText()).toBe('Waiting for review')
     await foreman.getByTestId('approve-day').click()
+    // Nothing else waits: the foreman is back on the list, told what was approved; the day says so.
+    await foreman.waitForURL(address => address.pathname === '/review')
+    await foreman.getByTestId('approved-before').getByText('Fixture walk').waitFor()
+    await foreman.goto(`/review/${sheetId}`)
+    await waitForApp(foreman)
     await expect.poll(() => foreman.getByTestId('review-state').innerText()).toMatch(/^Approved/)
     expect(await checkAccessibility(foreman), 'the approved day').toEqual([])
     const audit = await testDb()('audit_log').where({ organisation_id: company.organisationId }).whereIn('action', ['review.flag', 'review.answer', 'review.resolve', 'review.approve']).orderBy('id')

@@ -2,7 +2,7 @@
 // here with their thumbnails. The outbox timer ticks every second in this file (NUXT_REPORTS_INTERVAL_SECONDS).
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { fetch } from '@nuxt/test-utils/e2e'
+import { fetch, url } from '@nuxt/test-utils/e2e'
 import sharp from 'sharp'
 import { useBuiltServer } from '../support/server'
 import { createCompany, type FixtureCompany } from '../support/fixtures'
@@ -72,7 +72,7 @@ describe('the day report', () => {
     await testDb()('day_sheets').where({ id: sheetId }).update({ review_state: 'approved', reviewed_by: company.foreman.userId, reviewed_at: new Date() })
     report = await messageTo(company.office.email, /^Day report: Fixture walk, 2026-11-24$/)
     expect(report.to).not.toContain(homeowner)
-    for (const line of ['Day: Full day', 'Weather: Clear, 54 °F', 'Review: Approved by the foreman', 'On site: 07:00 to 15:30', 'Crew and hours: Crew 1 8 h, Crew 2 8 h, Crew 3 8 h (total 24 h)',
+    for (const line of ['Date: Tuesday, November 24, 2026', 'Day: Full day', 'Weather: Clear, 54 °F', 'Review: Approved by the foreman', `Open the day in Tamp: ${url('/').replace(/\/$/, '')}/review/${sheetId}`, 'On site: 07:00 to 15:30', 'Crew and hours: Crew 1 8 h, Crew 2 8 h, Crew 3 8 h (total 24 h)',
       'Work done: Base for the front walk', 'Material drops: 12 ton 3/4 in crushed stone at Driveway apron', 'Base lifts: Front walk lift 1: 3/4 in crushed stone, 4 in loose to 3 in compacted, 4 passes']) {
       expect(report.text).toContain(line)
     }
@@ -151,7 +151,7 @@ describe('the evening report', () => {
       { id: earlySheet, job_id: early.jobId, work_date: daytime.date, status: 'full_day', work_done: 'Screeding' },
     ])
     const report = await messageTo(late.office.email, /^Day report: Fixture walk/)
-    expect(report.text).toContain('Review: Not yet approved by the foreman')
+    expect(report.text).toContain("Review: Waiting for the foreman's review")
     expect(report.text).toContain('Work done: Edge restraint set')
     await ticks(2)
     expect(messagesTo(early.office.email, /^Day report/)).toEqual([])

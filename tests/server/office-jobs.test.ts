@@ -239,19 +239,19 @@ describe('exports', () => {
     expect(response.headers.get('content-type')).toMatch(/^text\/csv/)
     expect(response.headers.get('content-disposition')).toMatch(/attachment; filename="jobs.csv"/)
     const lines = rowsOf(await response.text())
-    expect(lines[0]).toBe('Job,Customer,Site,Status,Foreman,Start date,Crew-days bid,Crew-days used,Weather days,Share of bid used (%),Person-hours bid,Person-hours used,Projected finish,Over/under bid')
-    expect(lines.find(l => l.startsWith('Hollis patio,'))).toBe(`Hollis patio,Hollis Ferrante,"14 Tanager Lane, Quarry Hollow",active,${company.foreman.name},2030-03-04,5,1.5,1,30,120,32,2030-03-12,under`)
+    expect(lines[0]).toBe('Job,Customer,Site,Status,Foreman,Start date,Crew-days bid,Crew-days used,Weather days,Share of bid used (%),Person-hours bid,Person-hours used,Projected finish,Against the bid,Status code,Bid code')
+    expect(lines.find(l => l.startsWith('Hollis patio,'))).toBe(`Hollis patio,Hollis Ferrante,"14 Tanager Lane, Quarry Hollow",Under way,${company.foreman.name},2030-03-04,5,1.5,1,30,120,32,2030-03-12,Within,active,under`)
     expect(lines.find(l => l.startsWith('Spruce edging,'))).toContain(',"\'=HYPERLINK(""http://x.test"",""pay here"")",')
   })
 
   it('exports a job\'s days, newest first, counting the crew sent home from the rain-out as on site', async () => {
     const response = await call('GET', `/api/exports/job-days/${patioId}`, { cookie: foreman })
     const lines = rowsOf(await response.text())
-    expect(lines[0]).toBe('Date,Day,Review,Weather,Crew-days,Weather days,Crew on site,Person-hours,Lifts,Drops,Photos,Work done')
+    expect(lines[0]).toBe('Date,Day,Review,Weather,Crew-days,Weather days,Crew on site,Person-hours,Lifts,Drops,Photos,Work done,Day code,Review code')
     expect(lines.slice(1).map(l => l.split(',').slice(0, 8).join(','))).toEqual([
-      '2030-03-06,Rain-out,waiting,Heavy rain,0,1,3,0',
-      '2030-03-05,Half day,waiting,Clear,0.5,0,2,8',
-      '2030-03-04,Full day,waiting,Clear,1,0,3,24',
+      '2030-03-06,Rain-out,Waiting for review,Heavy rain,0,1,3,0',
+      '2030-03-05,Half day,Waiting for review,Clear,0.5,0,2,8',
+      '2030-03-04,Full day,Waiting for review,Clear,1,0,3,24',
     ])
   })
 
@@ -259,13 +259,13 @@ describe('exports', () => {
     const response = await call('GET', '/api/exports/payroll?from=2030-03-01&to=2030-03-31', { cookie: office })
     expect(response.status).toBe(200)
     const lines = rowsOf(await response.text())
-    expect(lines[0]).toBe('Person,Role,Date,Job,Day,Hours')
+    expect(lines[0]).toBe('Person,Role,Date,Job,Day,Hours on site,Unpaid break (min),Hours')
     expect(lines.filter(l => l.startsWith('Crew 1,'))).toEqual([
-      'Crew 1,,2030-03-04,Alder steps,Full day,8',
-      'Crew 1,,2030-03-04,Hollis patio,Full day,8',
-      'Crew 1,,2030-03-05,Alder steps,Full day,8',
-      'Crew 1,,2030-03-05,Hollis patio,Half day,4',
-      'Crew 1,,2030-03-06,Hollis patio,Rain-out,0',
+      'Crew 1,,2030-03-04,Alder steps,Full day,8,0,8',
+      'Crew 1,,2030-03-04,Hollis patio,Full day,8,0,8',
+      'Crew 1,,2030-03-05,Alder steps,Full day,8,0,8',
+      'Crew 1,,2030-03-05,Hollis patio,Half day,4,0,4',
+      'Crew 1,,2030-03-06,Hollis patio,Rain-out,0,0,0',
     ])
     for (const cookie of [foreman, lead]) expect((await call('GET', '/api/exports/payroll?from=2030-03-01&to=2030-03-31', { cookie })).status).toBe(403)
   })

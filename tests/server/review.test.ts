@@ -251,7 +251,7 @@ describe('who may decide', () => {
       expect((await post(cookie, `/api/days/${day.sheetId}/approve`)).status).toBe(404)
       expect((await post(cookie, `/api/days/${day.sheetId}/reopen`)).status).toBe(404)
       expect((await flag(cookie, 'lift', day.liftId)).status).toBe(404)
-      expect((await flag(cookie, 'day_sheet', day.sheetId)).status).toBe(404)
+      expect((await flag(cookie, 'day_sheet', day.sheetId, 'other')).status).toBe(404)
       expect((await post(cookie, `/api/flags/${flagId}/resolve`)).status).toBe(404)
     }
     expect((await notesOf(day.sheetId)).map(n => n.kind)).toEqual(['flag'])

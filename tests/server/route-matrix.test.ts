@@ -126,7 +126,7 @@ const cases: Record<string, Case> = {
   'GET /api/days/:id': { request: async () => ({ path: `/api/days/${await ourDaySheet()}` }), expect: [401, 403, 200, 200, 404] },
   'POST /api/days/:id/approve': { request: async () => ({ path: `/api/days/${await freshDay()}/approve`, body: {} }), expect: [401, 403, 200, 200, 404] },
   'POST /api/days/:id/reopen': { request: async () => ({ path: `/api/days/${await freshDay('approved')}/reopen`, body: {} }), expect: [401, 403, 200, 200, 404] },
-  'POST /api/flags': { request: async () => ({ path: '/api/flags', body: { subjectType: 'day_sheet', subjectId: await freshDay(), reason: 'recompact', note: 'Matrix' } }), expect: [401, 403, 201, 201, 404] },
+  'POST /api/flags': { request: async () => ({ path: '/api/flags', body: { subjectType: 'day_sheet', subjectId: await freshDay(), reason: 'other', note: 'Matrix' } }), expect: [401, 403, 201, 201, 404] },
   'POST /api/flags/:id/resolve': { request: async () => ({ path: `/api/flags/${await freshFlag()}/resolve`, body: {} }), expect: [401, 403, 200, 200, 404] },
   'GET /api/photos/:id/:size': { request: async () => ({ path: `/api/photos/${await photoOnOurDay()}/thumb` }), expect: [401, 200, 200, 200, 404] },
 }

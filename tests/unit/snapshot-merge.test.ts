@@ -27,7 +27,7 @@ function entry(n: number, sheetId: string, hours = 8) {
 function snapshot(parts: Partial<Snapshot>): Snapshot {
   return {
     fetchedAt: new Date().toISOString(), jobs: [], roster: [{ id: uuid(9000), name: 'Oren Vasko', tradeRole: null }],
-    zoneRecords: [], materialEstimates: [], daySheets: [], timeEntries: [], materialDrops: [], lifts: [], photos: [], reviewFlags: [], flagAnswers: [],
+    zoneRecords: [], materialEstimates: [], daySheets: [], timeEntries: [], materialDrops: [], lifts: [], photos: [], reviewFlags: [], flagAnswers: [], zoneQuantities: [], builtEarlier: [],
     ...parts,
   }
 }

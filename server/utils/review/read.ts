@@ -1,6 +1,6 @@
 // What the foreman reads at night: the days waiting across their jobs, and one day in full.
 import type { Member } from '../members'
-import type { ReviewDay, ReviewList, ReviewListDay, ReviewNoteView } from '../../../shared/schemas/review'
+import type { ReviewDay, ReviewList, ReviewListDay, ReviewListState, ReviewNoteView } from '../../../shared/schemas/review'
 import { liftChecksFor } from '../lift-review'
 import { daySheetFields, loadDayParts } from '../day-parts'
 import { photoUrls } from '../../../shared/utils/photos'
@@ -17,13 +17,14 @@ type Counts = 'crew' | 'lifts' | 'photos' | 'openFlags' | 'answeredFlags'
 /** At most this many days in the list; the counts per job cover every day still open. */
 const listLimit = 300
 
-export async function reviewListFor(member: Member): Promise<ReviewList> {
+export async function reviewListFor(member: Member, state: ReviewListState = 'open'): Promise<ReviewList> {
   const db = useDb()
   const count = (sql: string) => db.raw(sql)
   const open = () => visibleJobs(member).join('day_sheets as s', 's.job_id', 'jobs.id').whereIn('s.review_state', openStates)
   // The page of days is chosen first; the counts are then worked out for those days only, not for
   // every open day of every job before the sort (a foreman of hundreds of jobs has thousands).
-  const page = open().orderBy([{ column: 's.work_date', order: 'desc' }, { column: 'jobs.name' }]).limit(listLimit).select('s.id')
+  const listed = () => state === 'open' ? open() : visibleJobs(member).join('day_sheets as s', 's.job_id', 'jobs.id').where('s.review_state', 'approved')
+  const page = listed().orderBy([{ column: 's.work_date', order: 'desc' }, { column: 'jobs.name' }]).limit(listLimit).select('s.id')
   const [rows, perJob]: [ListRow[], Record<string, unknown>[]] = await Promise.all([
     db.from(page.as('page')).join('day_sheets as s', 's.id', 'page.id').join('jobs', 'jobs.id', 's.job_id').leftJoin('users as u', 'u.id', 's.author_id')
       .orderBy([{ column: 's.work_date', order: 'desc' }, { column: 'jobs.name' }])
@@ -56,7 +57,7 @@ export async function requireReviewableDay(member: Member, dayId: string, db = u
 export async function reviewDayFor(member: Member, dayId: string): Promise<ReviewDay> {
   const db = useDb()
   const s = await requireReviewableDay(member, dayId)
-  const [{ crew, drops, lifts, photos, quantities }, notes, reviewer, author, checked] = await Promise.all([
+  const [{ crew, drops, lifts, photos, quantities, approvalNote }, notes, reviewer, author, checked] = await Promise.all([
     loadDayParts(dayId),
     db('review_notes as n').leftJoin('users as a', 'a.id', 'n.author_id').leftJoin('users as r', 'r.id', 'n.resolved_by').where('n.day_sheet_id', dayId).orderBy('n.created_at')
       .select('n.id', 'n.kind', 'n.subject_type as subjectType', 'n.subject_id as subjectId', 'n.parent_id as parentId', 'n.reason', 'n.body', 'a.name as authorName', 'n.created_at as createdAt', 'n.resolved_at as resolvedAt', 'r.name as resolvedByName'),
@@ -75,6 +76,7 @@ export async function reviewDayFor(member: Member, dayId: string): Promise<Revie
     lifts: lifts.map(l => ({ ...l, checks: checksOf.get(l.id) ?? [] })),
     quantities,
     photos: photoViews.filter(p => p.subjectType !== 'review_note'),
+    approvalNote: s.review_state === 'approved' ? approvalNote : null,
     notes: notes.map((n: ReviewNoteView): ReviewNoteView => ({
       ...n, createdAt: iso(n.createdAt) ?? '', resolvedAt: iso(n.resolvedAt),
       photos: photoViews.filter(p => p.subjectType === 'review_note' && p.subjectId === n.id).map(p => ({ id: p.id, caption: p.caption, thumbUrl: p.thumbUrl, displayUrl: p.displayUrl })),

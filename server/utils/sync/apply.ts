@@ -7,11 +7,24 @@ import { loadContext, type BatchContext, type BatchProbe } from './context'
 import { fromRow, kindMaps, naturalKey, sameContent, toColumns } from './kinds'
 import { applyFlagAnswers } from './flag-answers'
 import type { BatchTransaction } from './writer'
+import { crewHoursProblem, type CrewHoursRule } from '../../../shared/utils/crew-hours'
+import type { DayStatus } from '../../../shared/utils/daybook'
+import { refusal, type SyncRefusal } from '../../../shared/utils/sync-refusals'
 
 type Row = Record<string, unknown> & { id: string }
 type Write = { kind: SyncChange['kind'], id: string, columns: Record<string, unknown>, revision: number, op: 'insert' | 'update' | 'delete' }
 
-const lockedMessage = 'The foreman approved this day; ask them to reopen it to change it'
+type SheetDay = { status: DayStatus, breakMinutes: number }
+const hoursMessages: Record<CrewHoursRule, string> = {
+  hours: 'Hours from 0.25 to 24',
+  zeroOnWorkedDay: '0 hours only on a rain-out or a day with no work',
+  breakOverHours: 'The break takes up all of these hours',
+}
+
+/** The day an entry's hours are checked against: its sheet as this batch sends it, or as the server has it. */
+function sheetDayOf(sheetId: string, days: Map<string, SheetDay>, sheet: Row | undefined): SheetDay | undefined {
+  return days.get(sheetId) ?? (sheet?.status ? { status: sheet.status as DayStatus, breakMinutes: Number(sheet.break_minutes ?? 0) } : undefined)
+}
 
 /** Where a change belongs: its day sheet (existing or new in this batch) and job, or why it cannot go. */
 function placeOf(change: SyncChange, ctx: BatchContext, existingRow: Row | undefined, newSheets: Map<string, Row>) {
@@ -24,44 +37,43 @@ function placeOf(change: SyncChange, ctx: BatchContext, existingRow: Row | undef
   return { jobId: sheet?.job_id as string | undefined, sheet }
 }
 
-const naturalKeyMessages: Partial<Record<SyncChange['kind'], string>> = {
-  day_sheet: 'This job already has a day sheet for that date',
-  time_entry: 'This person already has hours on this day',
-  zone_quantity: 'This zone already has a quantity at this stage on this day',
-}
-
 const planKinds = new Set<SyncChange['kind']>(['zone', 'material_estimate'])
 
-function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Row>, claimed: Set<string>, member: Member): { result: SyncResult, write?: Write } {
+function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Row>, claimed: Set<string>, member: Member, days: Map<string, SheetDay>): { result: SyncResult, write?: Write } {
   const { kind, record } = change
   const base = { kind, id: record.id }
   if (planKinds.has(kind) && member.role === 'crew_lead') {
-    return { result: { ...base, status: 'rejected', message: 'Only the foreman or the office can change the job\'s plan' } }
+    return { result: { ...base, status: 'rejected', ...refusal('planOnly') } }
   }
   if (kind === 'zone' && change.op === 'delete') {
-    return { result: { ...base, status: 'rejected', message: 'Zones are removed by the office from the job setup' } }
+    return { result: { ...base, status: 'rejected', ...refusal('zonesByOffice') } }
   }
   const row = ctx.existing[kind].get(record.id)
   const { jobId, sheet } = placeOf(change, ctx, row, newSheets)
   if (!jobId || !ctx.visibleJobs.has(jobId)) {
-    return { result: { ...base, status: 'rejected', message: kind === 'day_sheet' || planKinds.has(kind) ? 'No such job' : 'The day sheet of this entry is not on the server' } }
+    return { result: { ...base, status: 'rejected', ...refusal(kind === 'day_sheet' || planKinds.has(kind) ? 'noSuchJob' : 'sheetMissing') } }
   }
   const server = row ? fromRow(kind, row) : null
   if (row && kindMaps[kind].fixed.some(key => JSON.stringify(server?.[key]) !== JSON.stringify((record as Record<string, unknown>)[key]))) {
-    return { result: { ...base, status: 'rejected', message: 'This entry cannot move to another day, job, zone or person' } }
+    return { result: { ...base, status: 'rejected', ...refusal('cannotMove') } }
   }
   if (sheet?.review_state === 'approved') {
-    return { result: { ...base, status: 'conflict', revision: row?.revision as number | undefined, server, message: lockedMessage } }
+    return { result: { ...base, status: 'conflict', revision: row?.revision as number | undefined, server, ...refusal('approved') } }
   }
   if ((change.kind === 'lift' || change.kind === 'zone_quantity') && ctx.zones.get(change.record.zoneId)?.job_id !== jobId) {
-    return { result: { ...base, status: 'rejected', message: 'That zone is not part of this job' } }
+    return { result: { ...base, status: 'rejected', ...refusal('wrongZone') } }
   }
   if (change.kind === 'time_entry' && !ctx.crew.has(change.record.crewMemberId)) {
-    return { result: { ...base, status: 'rejected', message: 'That person is not on the crew roster' } }
+    return { result: { ...base, status: 'rejected', ...refusal('notOnRoster') } }
+  }
+  if (change.kind === 'time_entry' && change.op === 'upsert') {
+    const day = sheetDayOf(change.record.daySheetId, days, sheet)
+    const rule = day && crewHoursProblem(change.record.hours, day)
+    if (rule) return { result: { ...base, status: 'rejected', code: `time_entry.${rule}`, message: hoursMessages[rule] } }
   }
 
   if (change.op === 'delete') {
-    if (!row) return { result: { ...base, status: 'unchanged', message: 'Already removed' } }
+    if (!row) return { result: { ...base, status: 'unchanged', ...refusal('alreadyRemoved') } }
     if (row.revision !== change.baseRevision) return { result: { ...base, status: 'conflict', revision: row.revision as number, server } }
     return { result: { ...base, status: 'applied' }, write: { kind, id: record.id, columns: {}, revision: 0, op: 'delete' } }
   }
@@ -74,12 +86,12 @@ function decide(change: SyncChange, ctx: BatchContext, newSheets: Map<string, Ro
     return { result: { ...base, status: 'applied', revision }, write: { kind, id: record.id, columns, revision, op: 'update' } }
   }
   if (change.baseRevision !== null) {
-    return { result: { ...base, status: 'conflict', server: null, message: 'This entry was removed on the server' } }
+    return { result: { ...base, status: 'conflict', server: null, ...refusal('removedOnServer') } }
   }
   const natural = naturalKey(kind, record as Record<string, unknown>)
   if (natural && (ctx.naturalKeys.has(natural) || claimed.has(natural))) {
-    const message = naturalKeyMessages[change.kind] ?? 'The estimate already has this material in this unit'
-    return { result: { ...base, status: 'conflict', server: null, message } }
+    const codes: Partial<Record<SyncChange['kind'], SyncRefusal>> = { day_sheet: 'sheetExists', time_entry: 'hoursExist', zone_quantity: 'quantityExists' }
+    return { result: { ...base, status: 'conflict', server: null, ...refusal(codes[change.kind] ?? 'estimateExists') } }
   }
   if (natural) claimed.add(natural)
   if (change.kind === 'day_sheet') newSheets.set(record.id, { id: record.id, job_id: change.record.jobId, review_state: 'waiting' })
@@ -102,7 +114,8 @@ async function applyRecordChanges(tx: BatchTransaction, member: Member, changes:
   const ctx = await loadContext(tx, probe, member.role)
   const newSheets = new Map<string, Row>()
   const claimed = new Set<string>()
-  const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member))
+  const days = new Map(changes.flatMap(c => c.kind === 'day_sheet' && c.op === 'upsert' ? [[c.record.id, { status: c.record.status, breakMinutes: c.record.breakMinutes }] as const] : []))
+  const decisions = changes.map(change => decide(change, ctx, newSheets, claimed, member, days))
   const writes = decisions.flatMap(d => d.write ? [d.write] : [])
   const now = new Date()
   const statements: Knex.QueryBuilder[] = []

@@ -5,6 +5,7 @@ import type { Knex } from 'knex'
 import type { FlagAnswerChange, SyncResult } from '../../../shared/schemas/daybook'
 import type { Member } from '../members'
 import type { BatchTransaction } from './writer'
+import { refusal } from '../../../shared/utils/sync-refusals'
 
 type AnswerRow = Record<string, unknown> & { id: string, kind: string, parent_id: string | null, body: string | null }
 type FlagRow = Record<string, unknown> & { id: string, organisation_id: string, job_id: string, day_sheet_id: string, subject_type: string, subject_id: string }
@@ -29,10 +30,10 @@ export async function applyFlagAnswers(tx: BatchTransaction, member: Member, cha
     const before = stored.get(record.id)
     if (before) {
       const same = before.kind === 'answer' && before.parent_id === record.flagId && before.body === record.body
-      return same ? { ...base, status: 'unchanged', revision: 1 } : { ...base, status: 'rejected', message: 'An answer cannot be changed once sent; send another one' }
+      return same ? { ...base, status: 'unchanged', revision: 1 } : { ...base, status: 'rejected', ...refusal('answerSent') }
     }
     const flag = flagById.get(record.flagId)
-    if (!flag) return { ...base, status: 'rejected', message: 'This flag is not on the server' }
+    if (!flag) return { ...base, status: 'rejected', ...refusal('flagMissing') }
     rows.push({
       id: record.id, organisation_id: flag.organisation_id, job_id: flag.job_id, day_sheet_id: flag.day_sheet_id, subject_type: flag.subject_type, subject_id: flag.subject_id,
       kind: 'answer', parent_id: flag.id, body: record.body, author_id: member.userId, created_at: now, updated_at: now,

@@ -28,7 +28,7 @@ export const kindMaps: Record<RecordKind, KindMap> = {
     fixed: ['jobId', 'workDate'],
     natural: ['jobId', 'workDate'],
     times: ['startedAt', 'finishedAt'],
-    keys: ['id', 'jobId', 'workDate', 'status', 'startedAt', 'finishedAt', 'weatherConditions', 'rainIn', 'temperatureF', 'hoursLost', 'hoursLostReason', 'workDone', 'siteNotes', 'locateTicket'],
+    keys: ['id', 'jobId', 'workDate', 'status', 'startedAt', 'finishedAt', 'breakMinutes', 'weatherConditions', 'rainIn', 'temperatureF', 'hoursLost', 'hoursLostReason', 'workDone', 'siteNotes', 'locateTicket'],
   },
   time_entry: { table: 'time_entries', fixed: ['daySheetId', 'crewMemberId'], keys: ['id', 'daySheetId', 'crewMemberId', 'hours'], natural: ['daySheetId', 'crewMemberId'] },
   material_drop: { table: 'material_drops', fixed: ['daySheetId'], keys: ['id', 'daySheetId', 'material', 'quantity', 'unit', 'stagedAt', 'ticketNumber'] },
