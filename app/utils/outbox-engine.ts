@@ -182,13 +182,21 @@ export class OutboxEngine {
     if (response.status >= 500 || response.status === 408 || response.status === 429) {
       return await this.retryLater(batch.keys, 'sending', Number(response.headers.get('retry-after')) || undefined)
     }
-    await idb.remove('meta', 'inflight')
     if (!response.ok) {
       const message = await errorMessage(response)
+      await idb.remove('meta', 'inflight')
       for (const key of batch.keys) await this.update(key, e => ({ ...e, state: 'attention', message, code: 'http' }))
       return 'done'
     }
-    const answer = await response.json() as SyncAnswer
+    let answer: SyncAnswer
+    try {
+      answer = await response.json() as SyncAnswer
+    }
+    catch {
+      // The answer was cut off once it had begun: the batch may be stored, so the very same request goes again.
+      return await this.retryLater(batch.keys, 'sending')
+    }
+    await idb.remove('meta', 'inflight')
     for (const result of answer.results) await this.settle(recordKey(result.kind, result.id), result)
     return 'done'
   }

@@ -82,6 +82,24 @@ describe('the outbox on the phone', () => {
     expect((await idb.get<LocalRecord>('records', 'day_sheet:s2'))?.revision).toBe(2)
   })
 
+  it('resends the very same request when the answer is cut off after it began, so nothing waits forever as "sending"', async () => {
+    const cut = new Response(new ReadableStream({
+      start(controller) {
+        controller.enqueue(new TextEncoder().encode('{"results":[{"kind":"day_'))
+        controller.error(new TypeError('terminated'))
+      },
+    }), { status: 200, headers: { 'content-type': 'application/json' } })
+    const h = harness([cut, applied('s2b')])
+    await h.engine.saveRecord('day_sheet', sheet('s2b'), 'upsert', 'Day')
+    await h.engine.run()
+    expect(h.engine.status).toBe('waiting_retry')
+    expect((await h.engine.entries())[0]?.state).toBe('sending')
+    h.later(10 * 60_000)
+    await h.engine.run()
+    expect(h.sent[1]).toEqual(h.sent[0])
+    expect(await h.engine.entries()).toHaveLength(0)
+  })
+
   it('does not send before the backoff has passed after a server error', async () => {
     const h = harness([json({}, 503)])
     await h.engine.saveRecord('day_sheet', sheet('s3'), 'upsert', 'Day')
