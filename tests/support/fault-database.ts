@@ -14,6 +14,7 @@ import { dataDir, dbSettings } from '../../scripts/config'
 import { freePort } from '../../scripts/run-helpers'
 import { knexConfig } from '../../knexfile'
 import { ensureDebianPackage } from '../../scripts/debian'
+import { stopServer } from '../../scripts/mariadb-process'
 
 export interface DatabaseAddress { host: string, port: number }
 
@@ -78,6 +79,8 @@ async function answers(address: DatabaseAddress): Promise<boolean> {
 
 async function ownDatabase(): Promise<FaultDatabase> {
   await initialise()
+  // A run cut short leaves its server holding the datadir: stop it (by the pid it wrote) before starting anew.
+  await stopServer({ datadir, socket: resolve(home, 'm.sock'), pidFile: resolve(home, 'm.pid'), logFile: resolve(home, 'mariadb.log') })
   const mariadbd = await ensureDebianPackage('mariadbd', 'mariadb-server')
   const address = { host: '127.0.0.1', port: await freePort() }
   let child: ChildProcess | undefined
