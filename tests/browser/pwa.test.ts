@@ -185,7 +185,8 @@ describe('a crew lead with no signal', () => {
     await context.setOffline(true)
     await page.goto('/')
     await page.waitForURL(address => address.pathname === '/sign-in')
-    expect(await page.locator('input[name="password"]').count()).toBe(1)
+    // The form appears once the app has started from what the phone holds.
+    await expect.poll(() => page.locator('input[name="password"]').count()).toBe(1)
   })
 })
 

@@ -154,8 +154,12 @@ describe('uploads that are not phone photos', () => {
     const files = storedFiles().length
     const head = await phoneJpeg({ width: 640, height: 480 })
     // Declared, and streamed without a length; then a few at once, as five phones on one bad network might.
-    const answers = await Promise.all([hugeUpload(head, true), hugeUpload(head, false), ...Array.from({ length: 4 }, (_, i) => hugeUpload(head, i % 2 === 0))])
-    expect(answers).toEqual(Array.from({ length: 6 }, () => 413))
+    const first = [await hugeUpload(head, true), await hugeUpload(head, false)]
+    expect(first).toEqual([413, 413])
+    // At once, the server's close can reach a sender still writing before it has read the 413: the send
+    // then fails as a broken connection (the phone retries it later). Never anything but a refusal.
+    const together = await Promise.all(Array.from({ length: 4 }, (_, i) => hugeUpload(head, i % 2 === 0)))
+    expect(together.filter(answer => answer !== 413 && answer !== 'EPIPE' && answer !== 'ECONNRESET')).toEqual([])
     expect(await photoRows()).toBe(rows)
     expect(storedFiles().length).toBe(files)
     const after = serverMemoryMb()
