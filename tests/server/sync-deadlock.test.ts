@@ -29,15 +29,21 @@ afterAll(async () => {
 
 const deadlocks = async () => Number(((await testDb().raw('SHOW GLOBAL STATUS LIKE \'Innodb_deadlocks\'')) as [{ Value: string }[]])[0][0]?.Value)
 
-/** Resolves once a transaction other than `own` waits for a lock (read as root: it needs the PROCESS privilege). */
+/**
+ * Resolves once a transaction other than `own` waits for a lock. Read from InnoDB's own status (as root:
+ * it needs the PROCESS privilege): information_schema.innodb_trx leaves out a transaction opened by a
+ * multi-statement query, as the sync's batch writer sends it.
+ */
 async function someoneWaits(own: string): Promise<void> {
   const root = await rootConnection(mariadbPaths.socket)
   try {
-    for (;;) {
-      const [rows] = await root.query('SELECT trx_id FROM information_schema.innodb_trx WHERE trx_state = \'LOCK WAIT\' AND trx_mysql_thread_id <> ?', [own]) as [unknown[], unknown]
-      if (rows.length) return
+    for (const deadline = Date.now() + 20_000; Date.now() < deadline;) {
+      const [[{ Status: status }]] = await root.query('SHOW ENGINE INNODB STATUS') as [[{ Status: string }], unknown]
+      const waiting = [...status.matchAll(/LOCK WAIT [^\n]*\nMariaDB thread id (\d+)/g)].map(m => m[1])
+      if (waiting.some(thread => thread !== String(own))) return
       await new Promise(r => setTimeout(r, 20))
     }
+    throw new Error('no transaction waited for a lock within 20 s')
   }
   finally {
     await root.end()
@@ -60,7 +66,9 @@ describe('a sync batch that the database picks as a deadlock\'s victim', () => {
       await trx('crew_members').insert(Array.from({ length: 60 }, (_, i) => ({ id: randomUUID(), organisation_id: company.organisationId, name: `Weight ${i}` })))
       await trx('material_drops').where({ id: dropId }).forUpdate()
       const batch = sync(lead, [drop])
-      await someoneWaits(thread)
+      // A batch that answers without ever waiting (refused, say) fails here with its answer, not by a timeout.
+      const early = await Promise.race([someoneWaits(thread).then(() => undefined), batch])
+      if (early) throw new Error(`the batch answered before it waited for a lock: ${early.response.status} ${JSON.stringify(early.body)}`)
       await trx('day_sheets').where({ id: day.sheetId }).forUpdate()
       // Wrapped, so that the transaction commits without waiting for the batch (which waits for it).
       return { batch }
