@@ -3,7 +3,8 @@
 // touching the database every other test uses. TAMP_FAULTS_DB=host:port[,host:port...] points it at
 // databases someone else runs instead (a cluster's nodes, one app instance per address); those are
 // stopped mid-run only through TAMP_FAULTS_DB_STOP / TAMP_FAULTS_DB_START, shell commands of their own
-// (e.g. killing one node of a cluster and bringing it back).
+// (e.g. killing one node of a cluster and bringing it back). faultDatabase(name, { cluster: true }) runs it
+// on the project's three-node Galera cluster (scripts/cluster.ts), with one node killed mid-run.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process'
 import { existsSync, mkdirSync, rmSync } from 'node:fs'
 import { userInfo } from 'node:os'
@@ -14,7 +15,8 @@ import { dataDir, dbSettings } from '../../scripts/config'
 import { freePort } from '../../scripts/run-helpers'
 import { knexConfig } from '../../knexfile'
 import { ensureDebianPackage } from '../../scripts/debian'
-import { stopServer } from '../../scripts/mariadb-process'
+import { serverPid, stopServer } from '../../scripts/mariadb-process'
+import { clusterNodes, createClusterDatabase, killNode, startCluster, startNode, stopCluster } from '../../scripts/cluster'
 
 export interface DatabaseAddress { host: string, port: number }
 
@@ -112,12 +114,40 @@ async function ownDatabase(): Promise<FaultDatabase> {
   return { addresses: [address], start, stop, connect: name => knex(knexConfig({ ...dbSettings(name), ...address })), close: stop }
 }
 
+/**
+ * The three-node cluster, started unless it runs already (and stopped after only then): app instances
+ * on nodes 0 and 1; "the database stopped" is node 1 killed with SIGKILL, as a power cut, and started
+ * again once the run has gone on without it, rejoining the cluster and catching up.
+ */
+async function clusterDatabase(): Promise<FaultDatabase> {
+  const wasRunning = clusterNodes.every(node => serverPid(node.paths))
+  await startCluster()
+  const [first, second] = clusterNodes as [typeof clusterNodes[0], typeof clusterNodes[0]]
+  const addresses = [first, second].map(node => ({ host: '127.0.0.1', port: node.port }))
+  return {
+    addresses,
+    stop: async () => void await killNode(second),
+    start: async () => await startNode(second),
+    connect: db => knex(knexConfig({ ...dbSettings(db), ...addresses[0]! })),
+    close: async () => {
+      if (!wasRunning) await stopCluster()
+    },
+  }
+}
+
 /** The suite's database target, with database `name` created fresh and migrated on it. */
-export async function faultDatabase(name: string): Promise<FaultDatabase> {
+export async function faultDatabase(name: string, { cluster = false } = {}): Promise<FaultDatabase> {
   const external = externalAddresses()
-  const target: FaultDatabase = external
-    ? { addresses: external, ...externalFaults(), connect: db => knex(knexConfig({ ...dbSettings(db), ...external[0]! })), close: async () => {} }
-    : await ownDatabase()
+  const target: FaultDatabase = cluster
+    ? await clusterDatabase()
+    : external
+      ? { addresses: external, ...externalFaults(), connect: db => knex(knexConfig({ ...dbSettings(db), ...external[0]! })), close: async () => {} }
+      : await ownDatabase()
+  if (cluster) {
+    await createClusterDatabase(name, { fresh: true })
+    await migrateOn(target, name)
+    return target
+  }
   const admin = knex(knexConfig({ ...dbSettings(''), ...target.addresses[0]!, database: '' }))
   try {
     await admin.raw(`DROP DATABASE IF EXISTS \`${name}\``)
@@ -126,6 +156,11 @@ export async function faultDatabase(name: string): Promise<FaultDatabase> {
   finally {
     await admin.destroy()
   }
+  await migrateOn(target, name)
+  return target
+}
+
+async function migrateOn(target: FaultDatabase, name: string): Promise<void> {
   const db = target.connect(name)
   try {
     await db.migrate.latest()
@@ -133,5 +168,4 @@ export async function faultDatabase(name: string): Promise<FaultDatabase> {
   finally {
     await db.destroy()
   }
-  return target
 }

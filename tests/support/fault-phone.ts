@@ -20,6 +20,9 @@ export class FaultDirector {
   readonly serverErrors = new Map<string, number>()
   /** Ids a refused request carried: none of them may reach the database. */
   readonly forbidden: string[] = []
+  /** True while the database (or a cluster node) is away; `duringOutage` counts the answers meanwhile, by instance and status. */
+  outage = false
+  readonly duringOutage = new Map<string, number>()
   /** Called with each sync request's number as it leaves, to time the big faults. */
   onSync: (n: number) => void = () => {}
 
@@ -48,6 +51,10 @@ const requestTimeoutMs = 30_000
 async function send(director: FaultDirector, url: string, init: RequestInit): Promise<Response> {
   try {
     const response = await fetch(url, { ...init, signal: AbortSignal.timeout(requestTimeoutMs) })
+    if (director.outage) {
+      const answer = `${new URL(url).origin} ${response.status}`
+      director.duringOutage.set(answer, (director.duringOutage.get(answer) ?? 0) + 1)
+    }
     if (response.status >= 500) {
       const answer = `${response.status} Retry-After: ${response.headers.get('retry-after') ?? 'none'}`
       director.serverErrors.set(answer, (director.serverErrors.get(answer) ?? 0) + 1)

@@ -6,6 +6,7 @@ import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import type { Knex } from 'knex'
 import type { SyncKind } from '../../shared/schemas/daybook'
+import { productionStages } from '../../shared/utils/trade-data-production'
 import type { PhotoMeta } from '../../app/utils/outbox-types'
 import { fixturePassword } from './fixtures'
 
@@ -54,7 +55,7 @@ export const kinds: KindSpec[] = [
   },
   {
     name: 'time_entry',
-    share: 330,
+    share: 300,
     // Up to three people a day, each once: a day's round-th entry is its round-th person.
     make: (day, n, world, _earlier, round) => ({ type: 'record', kind: 'time_entry', record: { id: randomUUID(), daySheetId: day.sheetId, crewMemberId: world.crew[round]!, hours: 6 + (n % 9) * 0.25 } }),
     stored: select('time_entries', ['id', 'day_sheet_id', 'crew_member_id', 'hours']),
@@ -62,21 +63,29 @@ export const kinds: KindSpec[] = [
   },
   {
     name: 'lift',
-    share: 180,
+    share: 170,
     make: (day, n, world) => ({ type: 'record', kind: 'lift', record: { id: randomUUID(), daySheetId: day.sheetId, zoneId: world.leads[day.lead]!.zoneId, material: '3/4 in crushed stone', looseIn: 4, compactedIn: 3 + (n % 4) * 0.25, passes: 3 + (n % 3), compactorClass: 'plate_medium', moistureNote: `Lift ${n}` } }),
     stored: select('lifts', ['id', 'day_sheet_id', 'zone_id', 'material', 'loose_in', 'compacted_in', 'passes', 'compactor_class', 'moisture_note']),
     count: bySheet('lifts'),
   },
   {
     name: 'material_drop',
-    share: 180,
+    share: 170,
     make: (day, n) => ({ type: 'record', kind: 'material_drop', record: { id: randomUUID(), daySheetId: day.sheetId, material: n % 2 ? 'Concrete pavers' : 'Bedding sand', quantity: 1 + (n % 20) * 0.5, unit: n % 2 ? 'pallet' : 'ton', stagedAt: 'Driveway apron', ticketNumber: `T-${n}` } }),
     stored: select('material_drops', ['id', 'day_sheet_id', 'material', 'quantity', 'unit', 'staged_at', 'ticket_number']),
     count: bySheet('material_drops'),
   },
   {
+    name: 'zone_quantity',
+    share: 60,
+    // What got built in the lead's patio that day: one stage a day (a zone has one quantity per day and stage).
+    make: (day, n, world) => ({ type: 'record', kind: 'zone_quantity', record: { id: randomUUID(), daySheetId: day.sheetId, zoneId: world.leads[day.lead]!.zoneId, stage: productionStages[n % productionStages.length]!, quantity: 40 + (n % 12) * 12.5, capLf: null } }),
+    stored: select('zone_quantities', ['id', 'day_sheet_id', 'zone_id', 'stage', 'quantity', 'cap_lf']),
+    count: bySheet('zone_quantities'),
+  },
+  {
     name: 'flag_answer',
-    share: 90,
+    share: 80,
     make: (day, n, world) => {
       const flag = world.leads[day.lead]!.flags[n % world.leads[day.lead]!.flags.length]!.split('|')[0]!
       return { type: 'record', kind: 'flag_answer', record: { id: randomUUID(), flagId: flag, body: `Re-compacted, answer ${n}` } }
