@@ -89,6 +89,8 @@ describe('the phone\'s word on what waits', () => {
     await page.context().unroute('**/api/sync')
     await page.getByRole('button', { name: form(en.outbox.needsLook, n) }).click()
     const retry = page.getByRole('button', { name: en.outbox.retry })
+    // The list opens under the tap; count its buttons only once it shows.
+    await retry.first().waitFor()
     // Each tap sends its change at once, and the list shrinks under the next tap.
     while (await retry.count()) await retry.first().click({ timeout: 2000 }).catch(() => undefined)
     await page.keyboard.press('Escape')
