@@ -101,7 +101,16 @@ describe('a week without signal, then a signal that comes and goes', () => {
   it('sends everything once while the signal drops every few seconds', async () => {
     const deadline = Date.now() + 150_000
     let flaps = 0
+    // One bar of signal: each request takes its time, so the drain spans several drops of the signal
+    // (on a fast machine it would otherwise finish in the first few seconds online), and a request the
+    // drop catches in flight is lost on the way, as it is on a phone.
+    let signal = true
+    await context.route(/\/api\/(sync|photos)/, async (route) => {
+      await new Promise(done => setTimeout(done, 400))
+      await (signal ? route.continue() : route.abort('internetdisconnected')).catch(() => undefined)
+    })
     for (let online = true; ; online = !online) {
+      signal = online
       await context.setOffline(!online)
       if (online) await page.getByTestId('send-now').click({ timeout: 1000 }).catch(() => undefined)
       await page.waitForTimeout(online ? 2500 : 1200)
@@ -109,6 +118,7 @@ describe('a week without signal, then a signal that comes and goes', () => {
       if (online && await count() === '0') break
       if (Date.now() > deadline) throw new Error(`the phone still holds ${await count()} after ${flaps} changes of signal`)
     }
+    await context.unroute(/\/api\/(sync|photos)/)
     expect(flaps).toBeGreaterThan(2)
     const db = testDb()
     const sheets = await db('day_sheets').where({ job_id: company.jobId }).pluck('id')
