@@ -1,11 +1,9 @@
 // The state every Tamp form needs: field errors beside the inputs, one message above the button,
 // and a pending flag. The same zod schema the server validates with runs here first, and a 422 from
-// the server lands in the same fieldErrors, so a form shows both the same way.
+// the server lands in the same fieldErrors, so a form shows both the same way; messages Tamp knows
+// (app/utils/form-messages.ts) show in the user's language.
 import type { z } from 'zod'
 import { fieldErrorsOf, type FieldErrors } from '~~/shared/utils/field-errors'
-
-const UNREACHABLE = 'Could not reach Tamp. Check the connection and try again.'
-const FAILED = 'Something went wrong. Try again.'
 
 function isRecord(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null
@@ -50,9 +48,19 @@ export function readServerError(error: unknown): ServerError {
 export type SubmitResult<T> = { ok: true, data: T } | { ok: false, status?: number }
 
 export function useApiForm() {
+  const { t } = useI18n()
   const fieldErrors = ref<FieldErrors>({})
   const formError = ref('')
   const pending = ref(false)
+
+  function translated(message: string): string {
+    const known = formMessageKey(message)
+    return known ? t(known.key, { n: known.n ?? '' }) : message
+  }
+
+  function translatedAll(errors: FieldErrors): FieldErrors {
+    return Object.fromEntries(Object.entries(errors).map(([key, message]) => [key, translated(message)]))
+  }
 
   function reset() {
     fieldErrors.value = {}
@@ -71,8 +79,8 @@ export function useApiForm() {
     const result = schema.safeParse(values)
     if (result.success) return result.data
     const { _form, ...errors } = fieldErrorsOf(result.error)
-    fieldErrors.value = errors
-    if (_form) formError.value = _form
+    fieldErrors.value = translatedAll(errors)
+    if (_form) formError.value = translated(_form)
     focusFirstError()
     return undefined
   }
@@ -81,16 +89,15 @@ export function useApiForm() {
     const { status, message, fieldErrors: fromServer, retryAfter } = readServerError(error)
     if (status === 422 && fromServer && Object.keys(fromServer).length) {
       const { _form, ...errors } = fromServer
-      fieldErrors.value = errors
-      if (_form) formError.value = _form
+      fieldErrors.value = translatedAll(errors)
+      if (_form) formError.value = translated(_form)
       focusFirstError()
     }
     else if (status === 429) {
-      const minutes = retryMinutes(retryAfter)
-      formError.value = `Too many attempts, try again in ${minutes} ${minutes === 1 ? 'minute' : 'minutes'}.`
+      formError.value = t('formError.tooMany', retryMinutes(retryAfter))
     }
-    else if (status === undefined) formError.value = UNREACHABLE
-    else formError.value = message ?? FAILED
+    else if (status === undefined) formError.value = t('formError.unreachable')
+    else formError.value = message ? translated(message) : t('formError.failed')
     return status
   }
 

@@ -1,16 +1,18 @@
 // A crew lead who chose Spanish sees no English on any screen they use: home, Today, the day sheet
-// (crew with their trade roles, drops, lifts, a foreman's flag), the outbox with a refused change, and
-// their profile. The detector: English words of the app's own vocabulary, once the names and values
+// (crew with their trade roles, drops, lifts, a foreman's flag), the outbox with a refused change, the
+// job's plan and their profile; and a Spanish phone before anyone signed in on it, the sign-in. The detector: English words of the app's own vocabulary, once the names and values
 // people typed (jobs, people, materials) and the units are taken out.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
+import { url } from '@nuxt/test-utils/e2e'
 import { useBuiltServer } from '../support/server'
 import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { addZoneAndCrew, dayWithWork, sync } from '../support/daybook'
 import { call, signIn } from '../support/http'
 import { testDb } from '../support/db'
-import { launchBrowser, waitForApp } from '../support/browser'
+import { launchBrowser, phoneContext, waitForApp } from '../support/browser'
 import { openDaySheet } from '../support/day-sheet'
+import es from '../../i18n/locales/es.json'
 
 await useBuiltServer()
 
@@ -19,7 +21,7 @@ let company: FixtureCompany
 const today = new Date().toISOString().slice(0, 10)
 // What people typed, and units: not the app's words.
 const typed = ['Fixture walk', 'Fixture customer', '1 Fixture Way', 'Front walk', '3/4 in crushed stone', 'Driveway apron', 'Base for the front walk', 'Damp', 'Clear', 'Tamp', 'English', 'sq ft', 'cu yd', 'lin ft', 'ton']
-const english = ['the', 'and', 'of', 'to', 'is', 'your', 'you', 'with', 'for', 'this', 'that', 'day', 'days', 'hours', 'crew', 'save', 'send', 'sent', 'waiting', 'photo', 'photos', 'job', 'jobs', 'lift', 'lifts', 'flag', 'flags', 'not', 'yet', 'from', 'office', 'today', 'hello', 'starts', 'bid', 'planned', 'finished', 'sign', 'profile', 'name', 'signal', 'phone', 'answer', 'here', 'what', 'how', 'all', 'none', 'new', 'edit', 'remove', 'cancel', 'close', 'zone', 'drop', 'weather', 'notes', 'work', 'done', 'lost', 'start', 'finish', 'break', 'laborer', 'lead', 'refused', 'under', 'way', 'password', 'language', 'email', 'passes', 'loose', 'compacted', 'quantity', 'unit', 'check', 'depth', 'caption', 'take', 'add']
+const english = ['the', 'and', 'of', 'to', 'is', 'your', 'you', 'with', 'for', 'this', 'that', 'day', 'days', 'hours', 'crew', 'save', 'send', 'sent', 'waiting', 'photo', 'photos', 'job', 'jobs', 'lift', 'lifts', 'flag', 'flags', 'not', 'yet', 'from', 'office', 'today', 'hello', 'starts', 'bid', 'planned', 'finished', 'sign', 'profile', 'name', 'signal', 'phone', 'answer', 'here', 'what', 'how', 'all', 'none', 'new', 'edit', 'remove', 'cancel', 'close', 'zone', 'drop', 'weather', 'notes', 'work', 'done', 'lost', 'start', 'finish', 'break', 'laborer', 'lead', 'refused', 'under', 'way', 'password', 'language', 'email', 'forgot', 'enter', 'link', 'company', 'account', 'match', 'characters', 'steps', 'wall', 'passes', 'loose', 'compacted', 'quantity', 'unit', 'check', 'depth', 'caption', 'take', 'add']
 
 beforeAll(async () => {
   company = await createCompany('Cuadrilla Pavers')
@@ -45,7 +47,8 @@ async function englishOn(page: Page): Promise<string[]> {
   for (const name of [company.lead.name, company.foreman.name, 'Cuadrilla Pavers']) text = text.split(name).join(' ')
   for (const value of typed) text = text.split(value).join(' ')
   text = text.replace(/Crew \d/g, ' ').replace(/\S+@\S+/g, ' ')
-  const words = new Set(text.toLowerCase().match(/[a-z]+/g) ?? [])
+  // Whole words with their accents: "allá" is Spanish, not "all".
+  const words = new Set(text.toLowerCase().match(/\p{L}+/gu) ?? [])
   return english.filter(word => words.has(word))
 }
 
@@ -68,14 +71,40 @@ describe('every crew screen in Spanish', () => {
     await page.keyboard.press('Escape')
     await page.context().unroute('**/api/sync')
 
-    for (const [name, path] of [['home', '/'], ['today', '/today'], ['profile', '/profile']] as const) {
+    for (const [name, path] of [['home', '/'], ['today', '/today'], ['plan', `/plan/${company.jobId}`], ['profile', '/profile']] as const) {
       await page.goto(path)
       await waitForApp(page)
       await page.locator('h1').first().waitFor()
       await page.waitForLoadState('networkidle')
       found[name] = await englishOn(page)
     }
-    expect(found).toEqual({ daySheet: [], outboxBadge: [], outboxPanel: [], home: [], today: [], profile: [] })
+    expect(found).toEqual({ daySheet: [], outboxBadge: [], outboxPanel: [], home: [], today: [], plan: [], profile: [] })
     await page.context().close()
+  })
+
+  it('shows a Spanish phone that never signed in the sign-in, its refusals and the forgotten-password page in Spanish', async () => {
+    const context = await phoneContext(browser, { baseURL: url('/').replace(/\/$/, ''), locale: 'es-US' })
+    const page = await context.newPage()
+    const found: Record<string, string[]> = {}
+    await page.goto('/sign-in')
+    await waitForApp(page)
+    found.signIn = await englishOn(page)
+    // Nothing typed: every field says what it needs, in Spanish.
+    await page.locator('form button[type="submit"]').click()
+    await page.locator('form .field-error').first().waitFor()
+    expect(await page.locator('form .field-error').first().innerText()).toContain('nombre@ejemplo.com')
+    found.blankRefused = await englishOn(page)
+    // A wrong password: the server's refusal, in Spanish.
+    await page.locator('input[name="email"]').fill(company.lead.email)
+    await page.locator('input[name="password"]').fill('not the password at all')
+    await page.locator('form button[type="submit"]').click()
+    await page.locator('form [role="alert"]').waitFor()
+    expect(await page.locator('form [role="alert"]').innerText()).toBe(es.formError.wrongPair)
+    found.wrongPassword = await englishOn(page)
+    await page.goto('/forgot-password')
+    await waitForApp(page)
+    found.forgot = await englishOn(page)
+    expect(found).toEqual({ signIn: [], blankRefused: [], wrongPassword: [], forgot: [] })
+    await context.close()
   })
 })
