@@ -34,10 +34,20 @@ export function buildIsCurrent(): boolean {
 
 export function ensureBuild(): void {
   if (buildIsCurrent()) return
-  console.log('Tamp: building the app (the build is missing or older than the sources)...')
+  console.log('Tamp: building the app (the build is missing or older than the sources); this takes a minute or two...')
   const fingerprint = sourceFingerprint()
-  const result = spawnSync('npx', ['nuxt', 'build'], { cwd: root, stdio: 'inherit', env: { ...process.env, NODE_ENV: 'production' } })
-  if (result.status !== 0) throw new Error('the build failed; see the output above')
+  // The build's own log only when it fails, or when asked for with TAMP_BUILD_LOG=1.
+  const verbose = process.env.TAMP_BUILD_LOG === '1'
+  const result = spawnSync('npx', ['nuxt', 'build'], {
+    cwd: root,
+    stdio: verbose ? 'inherit' : ['ignore', 'pipe', 'pipe'],
+    maxBuffer: 256 * 1024 * 1024,
+    env: { ...process.env, NODE_ENV: 'production' },
+  })
+  if (result.status !== 0) {
+    if (!verbose) process.stderr.write(`${result.stdout ?? ''}${result.stderr ?? ''}`)
+    throw new Error('the build failed; see the output above')
+  }
   writeFileSync(stampFile, JSON.stringify({ fingerprint, builtAt: new Date().toISOString() }))
 }
 

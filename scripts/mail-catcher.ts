@@ -1,5 +1,6 @@
 // The local stand-in for an SMTP provider: in development and tests Tamp sends its mail here, and
 // the development page and the tests read it back over a small HTTP API on 127.0.0.1:
+//   GET /                                    a page to read them in a browser (scripts/mail-catcher-page.ts)
 //   GET /messages                            every caught message, oldest first
 //   GET /messages/:id                        one message
 //   GET /messages/:id/attachments/:index     an attachment's bytes
@@ -15,6 +16,7 @@ import { simpleParser, type ParsedMail } from 'mailparser'
 import { SMTPServer, type SMTPServerEnvelope } from 'smtp-server'
 import { mailSettings } from './config'
 import { TampSetupError } from './debian'
+import { catcherPage } from './mail-catcher-page'
 
 /** Enough for any test run or day of development, small enough that a forgotten catcher stays small. */
 const KEEP = 500
@@ -117,6 +119,7 @@ export async function startMailCatcher({ smtpPort = mailSettings.smtpPort, httpP
 
   const http = createServer((req, res) => {
     const [root, id, sub, index, ...rest] = new URL(req.url ?? '/', 'http://catcher').pathname.split('/').filter(Boolean)
+    if (!root && req.method === 'GET') return res.writeHead(200, { 'content-type': 'text/html; charset=utf-8' }).end(catcherPage(caught.map(c => c.message)))
     if (root !== 'messages' || rest.length) return sendJson(res, 404, { error: 'not found' })
     if (req.method === 'DELETE' && !id) {
       caught.length = 0
@@ -156,7 +159,7 @@ export async function startMailCatcher({ smtpPort = mailSettings.smtpPort, httpP
 if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
   try {
     const catcher = await startMailCatcher()
-    console.log(`Tamp mail catcher: SMTP on 127.0.0.1:${catcher.smtpPort}, messages at http://127.0.0.1:${catcher.httpPort}/messages`)
+    console.log(`Tamp mail catcher: SMTP on 127.0.0.1:${catcher.smtpPort}, read them at http://127.0.0.1:${catcher.httpPort}/`)
     const stop = () => catcher.stop().then(() => process.exit(0))
     process.once('SIGTERM', stop)
     process.once('SIGINT', stop)

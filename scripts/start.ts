@@ -34,8 +34,9 @@ async function main(): Promise<void> {
   })
 
   await waitForHealth(`http://localhost:${port}/api/health`)
+  console.log(`Mail Tamp sends (invitations, password links): http://127.0.0.1:${catcher.httpPort}/ (SMTP on 127.0.0.1:${catcher.smtpPort})`)
+  // The address and the sign-ins last, where a newcomer looks.
   printSignIns(`http://localhost:${port}`)
-  console.log(`Mail catcher: http://127.0.0.1:${catcher.httpPort}/messages (SMTP on 127.0.0.1:${catcher.smtpPort})`)
 }
 
 main().catch(failInOneLine)

@@ -68,4 +68,19 @@ describe('mail catcher', () => {
   it('a message that is not there is a 404, not an empty page', async () => {
     expect((await api('/messages/nope')).status).toBe(404)
   })
+  it('shows a newcomer the invitation on a page of its own, its link clickable and its text escaped', async () => {
+    await sendInvitation()
+    const transport = nodemailer.createTransport({ host: '127.0.0.1', port: catcher.smtpPort, secure: false, ignoreTLS: true })
+    await transport.sendMail({ from: 'tamp@tamp.test', to: 'x@crew.test', subject: 'Note <b>bold</b>', text: 'Gravel <script>alert(1)</script>' })
+    transport.close()
+    const page = await api('/')
+    expect(page.headers.get('content-type')).toContain('text/html')
+    const html = await page.text()
+    expect(html).toContain('<a href="http://tamp.test/invite/abc">http://tamp.test/invite/abc</a>')
+    expect(html).toContain('You are invited to the Riverside patio crew')
+    expect(html).toContain('Gravel &lt;script&gt;alert(1)&lt;/script&gt;')
+    expect(html).toContain('Note &lt;b&gt;bold&lt;/b&gt;')
+    // Newest first: the link just asked for is on top.
+    expect(html.indexOf('Note &lt;b&gt;')).toBeLessThan(html.indexOf('Riverside patio crew'))
+  })
 })
