@@ -32,22 +32,23 @@ export function buildIsCurrent(): boolean {
   return JSON.parse(readFileSync(stampFile, 'utf8')).fingerprint === sourceFingerprint()
 }
 
+/**
+ * Runs a build step with its log shown only when it fails (or always with TAMP_BUILD_LOG=1), so a
+ * newcomer's `npm start` ends on the address and the sign-ins, not on pages of bundler output.
+ */
+export function runQuietly(command: string, args: string[], env: NodeJS.ProcessEnv = process.env): void {
+  const verbose = env.TAMP_BUILD_LOG === '1'
+  const result = spawnSync(command, args, { cwd: root, stdio: verbose ? 'inherit' : ['ignore', 'pipe', 'pipe'], maxBuffer: 256 * 1024 * 1024, env })
+  if (result.status === 0) return
+  if (!verbose) process.stderr.write(`${result.stdout ?? ''}${result.stderr ?? ''}`)
+  throw new Error('the build failed; see the output above')
+}
+
 export function ensureBuild(): void {
   if (buildIsCurrent()) return
   console.log('Tamp: building the app (the build is missing or older than the sources); this takes a minute or two...')
   const fingerprint = sourceFingerprint()
-  // The build's own log only when it fails, or when asked for with TAMP_BUILD_LOG=1.
-  const verbose = process.env.TAMP_BUILD_LOG === '1'
-  const result = spawnSync('npx', ['nuxt', 'build'], {
-    cwd: root,
-    stdio: verbose ? 'inherit' : ['ignore', 'pipe', 'pipe'],
-    maxBuffer: 256 * 1024 * 1024,
-    env: { ...process.env, NODE_ENV: 'production' },
-  })
-  if (result.status !== 0) {
-    if (!verbose) process.stderr.write(`${result.stdout ?? ''}${result.stderr ?? ''}`)
-    throw new Error('the build failed; see the output above')
-  }
+  runQuietly('npx', ['nuxt', 'build'], { ...process.env, NODE_ENV: 'production' })
   writeFileSync(stampFile, JSON.stringify({ fingerprint, builtAt: new Date().toISOString() }))
 }
 
