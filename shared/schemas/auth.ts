@@ -40,7 +40,7 @@ export const memberPatchBody = z.strictObject({
 export const profilePatchBody = z.strictObject({
   name: personName.optional(),
   locale: locale.optional(),
-})
+}).refine(body => body.name !== undefined || body.locale !== undefined, { message: 'Change the name or the language' })
 
 export const passwordChangeBody = z.strictObject({
   currentPassword: z.string().min(1, 'Enter your current password').max(200),

@@ -53,6 +53,14 @@ describe('bad input changes nothing and says what is wrong', () => {
     expect(await counts()).toEqual(before)
   })
 
+  it('answers 422 for a profile change that changes nothing (an empty or null body), instead of a silent 200', async () => {
+    for (const body of [{}, null]) {
+      const response = await call('PATCH', '/api/profile', { cookie: office, body })
+      expect(response.status, JSON.stringify(body)).toBe(422)
+      expect((await response.json()).data.fieldErrors._form).toBe('Change the name or the language')
+    }
+  })
+
   it('answers 400 for a body that is not JSON', async () => {
     const response = await call('POST', '/api/invitations', { cookie: office, body: '{"email": ', headers: { 'content-type': 'application/json' } })
     expect(response.status).toBe(400)
