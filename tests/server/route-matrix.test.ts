@@ -62,6 +62,13 @@ const freshFlag = async () => {
   await testDb()('review_notes').insert({ id, organisation_id: ours.organisationId, job_id: ours.jobId, day_sheet_id: day, subject_type: 'day_sheet', subject_id: day, kind: 'flag', reason: 'other', body: 'Matrix flag' })
   return id
 }
+// One labourer on our roster, made once.
+let crewMember: Promise<string> | undefined
+const ourCrewMember = () => crewMember ??= (async () => {
+  const id = randomUUID()
+  await testDb()('crew_members').insert({ id, organisation_id: ours.organisationId, name: 'Matrix roster laborer' })
+  return id
+})()
 // A new job with a fresh id for each caller; an edit of our job at its current revision.
 const newJobBody = () => ({ id: randomUUID(), name: 'Matrix patio', customerName: 'Matrix customer', siteAddress: '2 Matrix Road', crewDaysBid: 3, crewSize: 2, personHoursBid: 48 })
 async function ourJobEdit() {
@@ -87,6 +94,9 @@ const cases: Record<string, Case> = {
   'DELETE /api/invitations/:id': { request: async () => ({ path: `/api/invitations/${await openInvitation()}` }), expect: [401, 403, 403, 200, 404] },
   'GET /api/members': { request: path('/api/members'), expect: [401, 403, 403, 200, 200] },
   'PATCH /api/members/:id': { request: async () => ({ path: `/api/members/${ours.foreman.membershipId}`, body: { role: 'foreman' } }), expect: [401, 403, 403, 200, 404] },
+  'GET /api/crew': { request: path('/api/crew'), expect: [401, 403, 403, 200, 200] },
+  'POST /api/crew': { request: async () => ({ path: '/api/crew', body: { name: `Matrix laborer ${randomUUID().slice(0, 8)}`, tradeRole: 'Laborer' } }), expect: [401, 403, 403, 201, 201] },
+  'PATCH /api/crew/:id': { request: async () => ({ path: `/api/crew/${await ourCrewMember()}`, body: { phone: '555 0100' } }), expect: [401, 403, 403, 200, 404] },
   'GET /api/profile': { request: path('/api/profile'), expect: [401, 200, 200, 200, 200] },
   'PATCH /api/profile': { request: async () => ({ path: '/api/profile', body: { locale: 'en' } }), expect: [401, 200, 200, 200, 200] },
   'POST /api/profile/password': { request: async () => ({ path: '/api/profile/password', body: { currentPassword: 'not-mine', newPassword: 'long-enough-password' } }), expect: [401, 422, 422, 422, 422] },
