@@ -6,6 +6,7 @@ import { dayStatusLabels, weatherLine } from '../../shared/utils/daybook'
 import { photoUrls } from '../../shared/utils/photos'
 import { daySheetFields, loadDayParts, type DaySheetFields } from './day-parts'
 import { builtLine } from './zone-quantities'
+import { readableDate } from '../../shared/utils/readable-dates'
 
 export interface DayReport {
   job: { id: string, name: string, customerName: string, siteAddress: string, organisationId: string, foremanId: string | null, customerEmail: string | null, homeownerUpdates: boolean }
@@ -59,10 +60,6 @@ export async function requireDayReport(member: Member, daySheetId: string): Prom
 
 
 /** A calendar day as people read it: "Tuesday, November 24, 2026". */
-export function readableDate(date: string): string {
-  return new Intl.DateTimeFormat('en-US', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${date}T12:00:00Z`))
-}
-
 const reviewWords = { waiting: 'Waiting for the foreman\'s review', approved: 'Approved by the foreman', flagged: 'Flagged by the foreman', reopened: 'Reopened by the foreman' } as const
 
 /** Label and value lines of the report; the homeowner's copy names no crew member and no hours of theirs. */

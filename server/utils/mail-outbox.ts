@@ -2,7 +2,8 @@
 // of times (the table's unique key drops repeats) and sent by a timer (server/plugins/mail-outbox.ts),
 // never inside a request, so a relay that is down delays a message but never a sync or a save.
 import type { OutgoingMail } from './mail'
-import { dayReportFacts, loadDayReport, readableDate, type DayReport } from './day-report'
+import { dayReportFacts, loadDayReport, type DayReport } from './day-report'
+import { readableDate, shortDate } from '../../shared/utils/readable-dates'
 import { dayStatusLabels, weatherLine } from '../../shared/utils/daybook'
 import { calendarDateIn } from '../../shared/utils/work-calendar'
 import { retryDelayMs } from './mail-retry'
@@ -108,7 +109,7 @@ async function composeMessage(row: OutboxRow): Promise<OutgoingMail | undefined>
   if (row.kind === 'rain_out') {
     const to = await officeAddresses(report.job.organisationId, report.job.foremanId)
     if (!to.length) return undefined
-    return { to, subject: `Rain-out: ${report.job.name}, ${report.day.workDate}`, ...rainOutBody(report) }
+    return { to, subject: `Rain-out: ${report.job.name}, ${shortDate(report.day.workDate)}`, ...rainOutBody(report) }
   }
   const to = row.audience === 'homeowner'
     ? (report.job.homeownerUpdates && report.job.customerEmail ? [report.job.customerEmail] : [])
@@ -125,7 +126,7 @@ async function composeMessage(row: OutboxRow): Promise<OutgoingMail | undefined>
     footnote: row.audience === 'homeowner' ? 'You get these updates because you asked your contractor for them; tell them if you would rather not.' : undefined,
   })
   return {
-    to, subject: `Day report: ${report.job.name}, ${report.day.workDate}`, text, html,
+    to, subject: `Day report: ${report.job.name}, ${shortDate(report.day.workDate)}`, text, html,
     attachments: thumbs.map(t => ({ filename: t.filename, content: t.content, cid: t.cid, contentType: 'image/jpeg' })),
   }
 }
@@ -135,7 +136,7 @@ function rainOutBody(report: DayReport) {
   return renderMail({
     heading: `Rain-out on ${report.job.name}`,
     paragraphs: [
-      `The crew logged a rain-out at ${report.job.siteAddress} on ${day.workDate}. It counts as a weather day, not a crew-day of the bid.`,
+      `The crew logged a rain-out at ${report.job.siteAddress} on ${readableDate(day.workDate)}. It counts as a weather day, not a crew-day of the bid.`,
       ...(day.hoursLostReason ? [`Reason given: ${day.hoursLostReason}`] : []),
     ],
     facts: [['Weather', weatherLine(day)], ['Crew on site', String(report.crew.length)]],

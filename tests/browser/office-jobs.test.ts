@@ -2,6 +2,7 @@
 // its first day, and the office's jobs table then shows the weather day and a projected finish one
 // working day later. Real Chromium against the production build.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { readableDate } from '../../shared/utils/readable-dates'
 import { url } from '@nuxt/test-utils/e2e'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { useBuiltServer } from '../support/server'
@@ -160,7 +161,7 @@ describe('a job from the office to the crew lead\'s phone and back', () => {
     const printable = await laptop.newPage()
     await printable.setViewportSize({ width: 703, height: 1000 })
     await printable.emulateMedia({ media: 'print' })
-    for (const [path, heading] of [[`/print/job/${jobId}`, jobName], [`/print/day/${sheet.id}`, `${jobName}: ${startDate}`]] as const) {
+    for (const [path, heading] of [[`/print/job/${jobId}`, jobName], [`/print/day/${sheet.id}`, `${jobName}: ${readableDate(startDate)}`]] as const) {
       await printable.goto(path)
       await waitForApp(printable)
       await printable.getByRole('heading', { name: heading, level: 1 }).waitFor()

@@ -113,6 +113,15 @@ describe('a flag from the foreman to the crew lead\'s phone and back', () => {
     expect(await testDb()('review_notes').where({ id: flagId })).toEqual([expect.objectContaining({ kind: 'flag', subject_type: 'lift', subject_id: liftId, reason: 'recompact' })])
   })
 
+  it('prints the flagged day with its review state and its open flag', async () => {
+    const printable = await foremanContext.newPage()
+    await printable.goto(`/print/day/${sheetId}`)
+    await waitForApp(printable)
+    expect(await printable.getByTestId('review-state').innerText()).toBe('Flagged')
+    expect(await printable.getByTestId('open-flags').innerText()).toBe('1 not yet resolved')
+    await printable.close()
+  })
+
   it('shows the flag on the crew lead\'s phone after sync: a count on Today, the note beside the lift', async () => {
     await signInInBrowser(lead, company.lead.email, fixturePassword)
     await lead.goto('/today')

@@ -70,7 +70,7 @@ describe('the day report', () => {
 
   it('goes to the office once the foreman approves the day, with crew, hours, weather, work, drops and lifts', async () => {
     await testDb()('day_sheets').where({ id: sheetId }).update({ review_state: 'approved', reviewed_by: company.foreman.userId, reviewed_at: new Date() })
-    report = await messageTo(company.office.email, /^Day report: Fixture walk, 2026-11-24$/)
+    report = await messageTo(company.office.email, /^Day report: Fixture walk, Tue, Nov 24, 2026$/)
     expect(report.to).not.toContain(homeowner)
     for (const line of ['Date: Tuesday, November 24, 2026', 'Day: Full day', 'Weather: Clear, 54 °F', 'Review: Approved by the foreman', `Open the day in Tamp: ${url('/').replace(/\/$/, '')}/review/${sheetId}`, 'On site: 07:00 to 15:30', 'Crew and hours: Crew 1 8 h, Crew 2 8 h, Crew 3 8 h (total 24 h)',
       'Work done: Base for the front walk', 'Material drops: 12 ton 3/4 in crushed stone at Driveway apron', 'Base lifts: Front walk lift 1: 3/4 in crushed stone, 4 in loose to 3 in compacted, 4 passes']) {
@@ -97,7 +97,7 @@ describe('the day report', () => {
   })
 
   it('goes to the homeowner who asked for updates, without the crew\'s names and hours', async () => {
-    const copy = await messageTo(homeowner, /^Day report: Fixture walk, 2026-11-24$/)
+    const copy = await messageTo(homeowner, /^Day report: Fixture walk, Tue, Nov 24, 2026$/)
     expect(copy.to).toEqual([homeowner])
     expect(copy.text).toContain('Crew: 3 on site')
     expect(copy.text).not.toContain('Crew 1')
@@ -106,7 +106,7 @@ describe('the day report', () => {
 
   it('is sent once, however many times the outbox runs', async () => {
     await ticks(2)
-    expect(messagesTo(company.office.email, /^Day report: Fixture walk, 2026-11-24$/)).toHaveLength(1)
+    expect(messagesTo(company.office.email, /^Day report: Fixture walk, Tue, Nov 24, 2026$/)).toHaveLength(1)
     expect(messagesTo(homeowner, /^Day report/)).toHaveLength(1)
   })
 
@@ -117,7 +117,7 @@ describe('the day report', () => {
     expect(response.status).toBe(200)
     await testDb()('day_sheets').whereIn('id', [idleId, worked.sheetId]).update({ review_state: 'approved', reviewed_by: company.foreman.userId, reviewed_at: new Date() })
     // The worked day's report arriving shows the outbox has run over both approvals.
-    await messageTo(company.office.email, /^Day report: Fixture walk, 2026-11-20$/)
+    await messageTo(company.office.email, /^Day report: Fixture walk, Fri, Nov 20, 2026$/)
     expect(await testDb()('mail_outbox').where({ day_sheet_id: idleId }).first()).toBeUndefined()
     expect(messagesTo(company.office.email, /2026-11-23/)).toEqual([])
   })
@@ -128,7 +128,7 @@ describe('the rain-out notice', () => {
     const sheetId = randomUUID()
     const { response } = await sync(lead, [{ kind: 'day_sheet', op: 'upsert', baseRevision: null, record: { id: sheetId, jobId: company.jobId, workDate: '2026-11-25', status: 'rain_out', hoursLost: 8, hoursLostReason: 'Standing water on the base', weatherConditions: 'Heavy rain', rainIn: 1.2 } }])
     expect(response.status).toBe(200)
-    const notice = await messageTo(company.foreman.email, /^Rain-out: Fixture walk, 2026-11-25$/)
+    const notice = await messageTo(company.foreman.email, /^Rain-out: Fixture walk, Wed, Nov 25, 2026$/)
     expect(notice.to.sort()).toEqual([company.foreman.email, company.office.email].sort())
     expect(notice.text).toContain('Standing water on the base')
     expect(notice.text).toContain('Heavy rain, 1.2 in of rain')
@@ -170,12 +170,12 @@ describe('a relay that is down', () => {
     const failed = await testDb()('mail_outbox').where({ day_sheet_id: sheetId, kind: 'rain_out' }).first()
     expect(failed.attempts).toBeGreaterThanOrEqual(1)
     await mail.restart()
-    const notice = await messageTo(company.foreman.email, /^Rain-out: Fixture walk, 2026-11-26$/, 40_000)
+    const notice = await messageTo(company.foreman.email, /^Rain-out: Fixture walk, Thu, Nov 26, 2026$/, 40_000)
     expect(notice.to).toContain(company.office.email)
     // The row is marked sent just after the relay took the message.
     await expect.poll(async () => (await testDb()('mail_outbox').where({ day_sheet_id: sheetId, kind: 'rain_out' }).first()).sent_at, { timeout: 5000 }).not.toBeNull()
     const sent = await testDb()('mail_outbox').where({ day_sheet_id: sheetId, kind: 'rain_out' }).first()
     expect(sent.attempts).toBeGreaterThanOrEqual(2)
-    expect(messagesTo(company.foreman.email, /^Rain-out: Fixture walk, 2026-11-26$/)).toHaveLength(1)
+    expect(messagesTo(company.foreman.email, /^Rain-out: Fixture walk, Thu, Nov 26, 2026$/)).toHaveLength(1)
   })
 })

@@ -2,6 +2,7 @@
 // end, the sign-in throttle, a sync batch's exactly-once and the day reports' mail hold across both,
 // and photos live in one S3 bucket that both read.
 import { randomUUID } from 'node:crypto'
+import { shortDate } from '../../shared/utils/readable-dates'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { url } from '@nuxt/test-utils/e2e'
 import { useBuiltServer, testDatabase } from '../support/server'
@@ -70,7 +71,7 @@ describe('two app instances on one database', () => {
   it('mail each approved day\'s report to the office exactly once, though both instances\' mail timers run', async () => {
     const yard = await createCompany('Two Yards Reports')
     const dates = await approveDaysThrough([a, b], testDb(), yard, { 'x-forwarded-for': '198.51.100.7' })
-    for (const date of dates) expect(mail.messagesTo(yard.office.email, new RegExp(`^Day report: Fixture walk, ${date}$`))).toHaveLength(1)
+    for (const date of dates) expect(mail.messagesTo(yard.office.email, new RegExp(`^Day report: Fixture walk, ${shortDate(date)}$`))).toHaveLength(1)
     expect(mail.messagesTo(yard.office.email, /^Day report/)).toHaveLength(dates.length)
   }, 90_000)
 
