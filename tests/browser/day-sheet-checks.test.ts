@@ -72,6 +72,17 @@ describe('the day sheet\'s checks on the phone', () => {
     await page.context().close()
   })
 
+  it('refuses a built quantity of 0 or less in the crew lead\'s language, and keeps nothing', async () => {
+    const page = await daySheet('es')
+    const built = page.locator('form').filter({ has: page.getByTestId('add-built') })
+    await built.getByTestId(`built-zone-${zoneId}`).click()
+    await built.getByTestId('built-quantity').fill('-5')
+    await built.getByTestId('add-built').click()
+    await built.getByText(es.errors.zone_quantity.quantity).waitFor()
+    expect(await page.locator('[data-testid^="built-line-"]').count()).toBe(0)
+    await page.context().close()
+  })
+
   it('warns, without blocking, when a crew member already has hours on another job that day', async () => {
     const page = await daySheet('en')
     await page.getByRole('button', { name: 'Crew 1' }).click()
