@@ -4,7 +4,7 @@ import type { Member } from './members'
 import type { JobsTableQuery, JobsTableRow, JobsTableSort } from '../../shared/schemas/jobs'
 import { firstOpenDay, projectedFinish, todayIn } from '../../shared/utils/work-calendar'
 import { withForecasts } from './job-progress'
-import { bidMarkLabels, jobStatusLabels } from '../../shared/utils/daybook'
+import { bidMarkLabels, forecastWords, jobStatusLabels } from '../../shared/utils/daybook'
 
 const round = (n: number, places = 2) => Math.round(n * 10 ** places) / 10 ** places
 
@@ -88,8 +88,12 @@ export async function jobsTable(member: Member, query: JobsTableQuery, jobId?: s
 export function jobsTableCsv(rows: JobsTableRow[]): string {
   return toCsv(
     // The screen's words for the status and the mark, and the stable codes at the end for spreadsheets that match on them.
-    ['Job', 'Customer', 'Site', 'Status', 'Foreman', 'Start date', 'Crew-days bid', 'Crew-days used', 'Weather days', 'Share of bid used (%)', 'Person-hours bid', 'Person-hours used', 'Projected finish', 'Against the bid', 'Status code', 'Bid code'],
-    rows.map(r => [r.name, r.customerName, r.siteAddress, jobStatusLabels[r.status], r.foremanName, r.startDate, r.crewDaysBid, r.crewDaysUsed, r.weatherDays, round(r.bidShareUsed * 100, 1), r.personHoursBid, r.personHoursUsed, r.projectedFinish, bidMarkLabels[r.mark], r.status, r.mark]),
+    ['Job', 'Customer', 'Site', 'Status', 'Foreman', 'Start date', 'Crew-days bid', 'Crew-days used', 'Weather days', 'Share of bid used (%)', 'Person-hours bid', 'Person-hours used', 'Projected finish', 'Against the bid', 'Built (%)', 'Forecast crew-days', 'Forecast', 'Status code', 'Bid code', 'Forecast code'],
+    rows.map(r => [
+      r.name, r.customerName, r.siteAddress, jobStatusLabels[r.status], r.foremanName, r.startDate, r.crewDaysBid, r.crewDaysUsed, r.weatherDays, round(r.bidShareUsed * 100, 1), r.personHoursBid, r.personHoursUsed, r.projectedFinish, bidMarkLabels[r.mark],
+      r.percentComplete === null || r.percentComplete === undefined ? null : round(r.percentComplete * 100, 1), r.forecastCrewDays ?? null, forecastWords(r),
+      r.status, r.mark, r.forecastState ?? 'no_plan',
+    ]),
   )
 }
 

@@ -33,6 +33,13 @@ export const reviewStateLabels: Record<ReviewState, string> = { waiting: 'Waitin
 /** A job against its bid in the words of the jobs table. */
 export const bidMarkLabels = { over: 'Over', under: 'Within' } as const
 
+/** The forecast at a job's own rate in the jobs table's English words (its CSV and the printed job report). */
+export function forecastWords(f: { forecastState?: 'no_plan' | 'not_started' | 'on_track' | 'over', forecastOverBy?: number | null }): string {
+  if (f.forecastState === 'over') return `Over by ${f.forecastOverBy ?? 0} crew-days`
+  if (f.forecastState === 'on_track') return 'On track'
+  return f.forecastState === 'not_started' ? 'Nothing built yet' : 'No planned quantities'
+}
+
 /**
  * How a day counts against a bid counted in crew-days (common practice in the trade):
  * a full day uses 1 crew-day, a half day 0.5; a rain-out uses none and counts as 1 weather day;

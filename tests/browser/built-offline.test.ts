@@ -83,6 +83,10 @@ describe('a crew lead counting what got built with no signal', () => {
     expect(await desk.getByTestId('forecast-verdict').innerText()).toBe('On track')
     await desk.getByTestId('forecast-chart').waitFor()
     expect(await checkAccessibility(desk), 'the job page with its forecast').toEqual([])
+    // The printed job report says the same.
+    await desk.goto(`/print/job/${company.jobId}`)
+    await waitForApp(desk)
+    expect(await desk.getByTestId('print-forecast').innerText()).toBe('On track: 4 of 4 crew-days')
     await office.close()
   })
 })
