@@ -58,6 +58,7 @@ describe('every crew screen in Spanish', () => {
     const found: Record<string, string[]> = {}
     await page.getByText('Otra pasada en el borde').first().waitFor()
     found.daySheet = await englishOn(page)
+    expect(await page.evaluate(() => document.documentElement.lang)).toBe('es-US')
 
     // A change the office refuses, as the outbox lists it.
     await page.context().route('**/api/sync', route => route.fulfill({ status: 422, contentType: 'application/json', body: JSON.stringify({ statusCode: 422, statusMessage: 'Refused for this test' }) }))
@@ -89,6 +90,8 @@ describe('every crew screen in Spanish', () => {
     await page.goto('/sign-in')
     await waitForApp(page)
     found.signIn = await englishOn(page)
+    // Declared as Spanish, so a screen reader reads it with a Spanish voice.
+    expect(await page.evaluate(() => document.documentElement.lang)).toBe('es-US')
     // Nothing typed: every field says what it needs, in Spanish.
     await page.locator('form button[type="submit"]').click()
     await page.locator('form .field-error').first().waitFor()
