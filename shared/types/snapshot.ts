@@ -64,7 +64,12 @@ export type SnapshotRecord = Record<string, unknown> & { id: string, revision: n
 export interface Snapshot {
   fetchedAt: string
   jobs: SnapshotJob[]
-  roster: { id: string, name: string, tradeRole: string | null }[]
+  /**
+   * The crew roster: everyone on it, and anyone the office took off it who still has hours on the
+   * days the phone holds (active: false; shown so those hours can be read and removed, never added). A phone that kept
+   * an older roster has no `active`: all of it was on the roster.
+   */
+  roster: { id: string, name: string, tradeRole: string | null, active?: boolean }[]
   /** The zones again as records with revisions, for editing their design values offline. */
   zoneRecords: SnapshotRecord[]
   materialEstimates: SnapshotRecord[]
