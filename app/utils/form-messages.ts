@@ -7,6 +7,8 @@ const known: [RegExp, string][] = [
   [/^At most (\d+) characters$/, 'atMost'],
   [/^Enter a name$/, 'enterName'],
   [/^Enter your password$/, 'enterPassword'],
+  [/^Enter your current password$/, 'enterCurrentPassword'],
+  [/^This is not your current password$/, 'notCurrentPassword'],
   [/^This link is not valid$/, 'linkInvalid'],
   [/^That e-mail and password do not match an account$/, 'wrongPair'],
   [/^Choose the company to sign in to$/, 'chooseCompany'],
@@ -16,6 +18,7 @@ const known: [RegExp, string][] = [
   [/^You are already a member of this company/, 'alreadyMemberSignIn'],
   [/^This is not the password of your Tamp account$/, 'notYourPassword'],
   [/^Some fields need a look$/, 'fieldsNeedLook'],
+  [/^Someone on the roster already has this name/, 'sameName'],
 ]
 
 /** The translation key of an English form message and its figure, if the message is one Tamp knows. */

@@ -20,7 +20,7 @@ export async function listCrew(organisationId: string): Promise<CrewMember[]> {
 async function refuseSameName(trx: Knex.Transaction, organisationId: string, name: string, except?: string): Promise<void> {
   const same = await trx('crew_members').where({ organisation_id: organisationId, active: true }).whereRaw('LOWER(name) = LOWER(?)', [name])
     .modify((q) => { if (except) q.whereNot('id', except) }).forUpdate().first('id')
-  if (same) throw createError({ statusCode: 409, statusMessage: 'Someone on the roster already has this name', data: { fieldErrors: { name: 'Someone on the roster already has this name; add an initial' } } })
+  if (same) throw createError({ statusCode: 422, statusMessage: 'Someone on the roster already has this name', data: { fieldErrors: { name: 'Someone on the roster already has this name; add an initial' } } })
 }
 
 export async function addCrewMember(office: Member, body: CrewMemberBody): Promise<CrewMember> {

@@ -43,7 +43,7 @@ export const profilePatchBody = z.strictObject({
 }).refine(body => body.name !== undefined || body.locale !== undefined, { message: 'Change the name or the language' })
 
 export const passwordChangeBody = z.strictObject({
-  currentPassword: z.string().min(1, 'Enter your current password').max(200),
+  currentPassword: z.string().min(1, 'Enter your current password').max(200, 'At most 200 characters'),
   newPassword,
 })
 

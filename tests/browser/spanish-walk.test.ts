@@ -6,11 +6,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
 import { url } from '@nuxt/test-utils/e2e'
 import { useBuiltServer } from '../support/server'
-import { createCompany, type FixtureCompany } from '../support/fixtures'
+import { createCompany, fixturePassword, type FixtureCompany } from '../support/fixtures'
 import { addZoneAndCrew, dayWithWork, sync } from '../support/daybook'
 import { call, signIn } from '../support/http'
 import { testDb } from '../support/db'
-import { launchBrowser, phoneContext, waitForApp } from '../support/browser'
+import { launchBrowser, phoneContext, signInInBrowser, waitForApp } from '../support/browser'
 import { openDaySheet } from '../support/day-sheet'
 import es from '../../i18n/locales/es.json'
 
@@ -79,8 +79,28 @@ describe('every crew screen in Spanish', () => {
       await page.waitForLoadState('networkidle')
       found[name] = await englishOn(page)
     }
+    // A wrong current password on the profile: refused in Spanish.
+    await page.getByLabel(es.profile.currentPassword, { exact: true }).fill('not the password at all')
+    await page.getByLabel(es.profile.newPassword, { exact: true }).fill('a new long password')
+    await page.getByLabel(es.profile.newPasswordAgain, { exact: true }).fill('a new long password')
+    await page.getByRole('button', { name: es.profile.changePassword }).click()
+    await page.getByText(es.formError.notCurrentPassword).waitFor()
     expect(found).toEqual({ daySheet: [], outboxBadge: [], outboxPanel: [], home: [], today: [], plan: [], profile: [] })
     await page.context().close()
+  })
+
+  it('declares the foreman\'s English-only screens English, whatever language the foreman chose', async () => {
+    await testDb()('users').where({ id: company.foreman.userId }).update({ locale: 'es' })
+    const context = await phoneContext(browser, { baseURL: url('/').replace(/\/$/, '') })
+    const page = await context.newPage()
+    await signInInBrowser(page, company.foreman.email, fixturePassword)
+    await page.goto('/review')
+    await waitForApp(page)
+    await expect.poll(() => page.evaluate(() => document.documentElement.lang)).toBe('en-US')
+    await page.goto('/profile')
+    await waitForApp(page)
+    await expect.poll(() => page.evaluate(() => document.documentElement.lang)).toBe('es-US')
+    await context.close()
   })
 
   it('shows a Spanish phone that never signed in the sign-in, its refusals and the forgotten-password page in Spanish', async () => {
