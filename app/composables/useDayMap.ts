@@ -18,9 +18,15 @@ export function useDayMap({ sheetId, form, crew, errors, crewErrors }: DayMapInp
     weather: ['weatherConditions', 'rainIn', 'temperatureF'],
     notes: ['workDone', 'siteNotes', 'locateTicket'],
   }
+  // A record of the section that the office refused waits for the crew lead to fix it: a mistake too.
+  const refused = {
+    drops: () => store.dropsOf(sheetId.value).some(r => store.stateOf('material_drop', r.id) === 'attention'),
+    lifts: () => store.liftsOf(sheetId.value).some(r => store.stateOf('lift', r.id) === 'attention'),
+    built: () => store.quantitiesOf(sheetId.value).some(r => store.stateOf('zone_quantity', r.id) === 'attention'),
+  } as Partial<Record<DaySection, () => boolean>>
   const hasError = (section: DaySection) => section === 'crew'
     ? Object.keys(crewErrors.value).length > 0
-    : (sectionFields[section] ?? []).some(field => errors.value[field])
+    : (sectionFields[section] ?? []).some(field => errors.value[field]) || (refused[section]?.() ?? false)
   const flagSection: Partial<Record<string, DaySection>> = { lift: 'lifts', material_drop: 'drops', zone_quantity: 'built' }
   const foldedFlags = computed(() => store.flagsOfDay(sheetId.value).filter(f => flagSection[f.subjectType]))
   const flaggedIn = (section: DaySection) => foldedFlags.value.filter(f => flagSection[f.subjectType] === section).length

@@ -10,6 +10,7 @@ import { addZoneAndCrew } from '../support/daybook'
 import { testDb } from '../support/db'
 import { phoneJpeg } from '../support/images'
 import { checkAccessibility, launchBrowser, phoneContext, signInInBrowser, waitForApp, waitForServiceWorker } from '../support/browser'
+import { fillNextLift } from '../support/day-sheet'
 
 await useBuiltServer()
 
@@ -131,13 +132,7 @@ describe('a crew lead logging the day with no signal', () => {
     await expect.poll(() => page.getByLabel('Hours for Crew 2').inputValue()).toBe('8.5')
     await page.getByLabel('Work done').fill('Base for the front walk')
 
-    const lift = page.locator('form').filter({ has: page.getByTestId('add-lift') })
-    await lift.getByLabel('Zone').selectOption(zoneId)
-    await lift.getByLabel('Material').fill('3/4 in crushed stone')
-    await lift.getByLabel('Loose thickness (in)').fill('4')
-    await lift.getByLabel('Compacted thickness (in)').fill('3')
-    await lift.getByLabel('Passes').fill('4')
-    await lift.getByLabel('Compactor').selectOption('plate-medium')
+    await fillNextLift(page, zoneId)
     await page.getByTestId('add-lift').click()
     // The lift has no photo of its own: the crew lead is told before the next lift covers it.
     await page.locator('[data-testid^="no-photo-"]').waitFor()

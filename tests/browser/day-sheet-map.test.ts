@@ -1,7 +1,7 @@
 // A whole day on a 390 px phone: the sections are one tap away from the top, with the foreman's flag
 // on a lift named there and linked to the flag itself; a section the crew lead hides stays hidden on
-// the phone, and opens by itself when it holds a mistake to fix; the cautions of the notes come after
-// its fields instead of between them.
+// the phone, and opens by itself when it holds a mistake to fix or a record the office refused; the
+// cautions of the notes come after its fields instead of between them.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Locator, Page } from 'playwright-core'
 import { useBuiltServer } from '../support/server'
@@ -9,7 +9,7 @@ import { createCompany, type FixtureCompany } from '../support/fixtures'
 import { addZoneAndCrew, dayWithWork, sync } from '../support/daybook'
 import { call, signIn } from '../support/http'
 import { launchBrowser, waitForApp } from '../support/browser'
-import { openDaySheet } from '../support/day-sheet'
+import { fillNextLift, openDaySheet } from '../support/day-sheet'
 import en from '../../i18n/locales/en.json'
 
 await useBuiltServer()
@@ -17,12 +17,15 @@ await useBuiltServer()
 let browser: Browser
 let company: FixtureCompany
 let flagId = ''
+let zoneId = ''
 const today = new Date().toISOString().slice(0, 10)
 const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10)
 
 beforeAll(async () => {
   company = await createCompany('Mapped Day Pavers')
-  const { zoneId, crew } = await addZoneAndCrew(company.organisationId, company.jobId)
+  const added = await addZoneAndCrew(company.organisationId, company.jobId)
+  zoneId = added.zoneId
+  const crew = added.crew
   const lead = await signIn(company.lead.email)
   const day = dayWithWork(company.jobId, zoneId, crew, today)
   expect((await sync(lead, day.changes)).response.status).toBe(200)
@@ -73,6 +76,12 @@ describe('the day sheet on a phone', () => {
     await waitForApp(page)
     await page.getByTestId('show-weather').waitFor()
     expect(await conditions.isVisible()).toBe(false)
+    // Shown again from its own line, the focus stays with the section instead of going back to the top.
+    await page.getByTestId('show-weather').click()
+    await conditions.waitFor()
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe('day-weather')
+    await page.getByTestId('hide-weather').click()
+    await page.getByTestId('show-weather').waitFor()
     await page.getByTestId('jump-weather').click()
     await conditions.waitFor()
     await expect.poll(() => onScreen(page, conditions)).toBe(true)
@@ -90,6 +99,18 @@ describe('the day sheet on a phone', () => {
     await page.getByTestId('save-day').click()
     await page.getByText(en.errors.day_sheet.finishBeforeStart).waitFor()
     expect(await page.getByTestId('show-clock').count()).toBe(0)
+    await page.context().close()
+  })
+
+  it('keeps the lifts open while the office refuses one, with no Hide that would do nothing', async () => {
+    const page = await openDaySheet(browser, company, yesterday, 'en')
+    await page.context().route('**/api/sync', route => route.fulfill({ status: 422, contentType: 'application/json', body: JSON.stringify({ statusCode: 422, statusMessage: 'Refused for this test' }) }))
+    await fillNextLift(page, zoneId)
+    await page.getByTestId('add-lift').click()
+    await expect.poll(() => page.getByTestId('day-section-lifts').locator('[data-state="attention"]').count(), { timeout: 20_000 }).toBeGreaterThan(0)
+    expect(await page.getByTestId('hide-lifts').count()).toBe(0)
+    expect(await page.getByTestId('show-lifts').count()).toBe(0)
+    await page.context().unroute('**/api/sync')
     await page.context().close()
   })
 

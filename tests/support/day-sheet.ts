@@ -14,3 +14,14 @@ export async function openDaySheet(browser: Browser, company: FixtureCompany, wo
   await waitForApp(page)
   return page
 }
+
+/** Fills the day sheet's form for the next lift, as the crew lead types it: 4 in loose of 3/4 in stone, 3 in compacted in 4 passes of a medium plate. */
+export async function fillNextLift(page: Page, zoneId: string): Promise<void> {
+  const lift = page.locator('form').filter({ has: page.getByTestId('add-lift') })
+  await lift.getByLabel('Zone').selectOption(zoneId)
+  await lift.getByLabel('Material').fill('3/4 in crushed stone')
+  await lift.getByLabel('Loose thickness (in)').fill('4')
+  await lift.getByLabel('Compacted thickness (in)').fill('3')
+  await lift.getByLabel('Passes').fill('4')
+  await lift.getByLabel('Compactor').selectOption('plate-medium')
+}
