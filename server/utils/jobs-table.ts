@@ -87,12 +87,13 @@ export async function jobsTable(member: Member, query: JobsTableQuery, jobId?: s
 /** The jobs table as CSV rows, in the order of the screen. */
 export function jobsTableCsv(rows: JobsTableRow[]): string {
   return toCsv(
-    // The screen's words for the status and the mark, and the stable codes at the end for spreadsheets that match on them.
-    ['Job', 'Customer', 'Site', 'Status', 'Foreman', 'Start date', 'Crew-days bid', 'Crew-days used', 'Weather days', 'Share of bid used (%)', 'Person-hours bid', 'Person-hours used', 'Projected finish', 'Against the bid', 'Built (%)', 'Forecast crew-days', 'Forecast', 'Status code', 'Bid code', 'Forecast code'],
+    // The screen's words for the status and the mark, and their stable codes after them for spreadsheets that
+    // match on them; the forecast's columns came later and follow, so the earlier ones keep their places.
+    ['Job', 'Customer', 'Site', 'Status', 'Foreman', 'Start date', 'Crew-days bid', 'Crew-days used', 'Weather days', 'Share of bid used (%)', 'Person-hours bid', 'Person-hours used', 'Projected finish', 'Against the bid', 'Status code', 'Bid code', 'Built (%)', 'Forecast crew-days', 'Forecast', 'Forecast code'],
     rows.map(r => [
       r.name, r.customerName, r.siteAddress, jobStatusLabels[r.status], r.foremanName, r.startDate, r.crewDaysBid, r.crewDaysUsed, r.weatherDays, round(r.bidShareUsed * 100, 1), r.personHoursBid, r.personHoursUsed, r.projectedFinish, bidMarkLabels[r.mark],
-      r.percentComplete === null || r.percentComplete === undefined ? null : round(r.percentComplete * 100, 1), r.forecastCrewDays ?? null, forecastWords(r),
-      r.status, r.mark, r.forecastState ?? 'no_plan',
+      r.status, r.mark,
+      r.percentComplete === null || r.percentComplete === undefined ? null : round(r.percentComplete * 100, 1), r.forecastCrewDays ?? null, forecastWords(r), r.forecastState ?? 'no_plan',
     ]),
   )
 }
