@@ -2,9 +2,7 @@
 // recipients, time, the text with its links clickable), for a newcomer on `npm start` opening an
 // invitation or a password link without a real mailbox. Everything is escaped: mail text is data.
 import type { CaughtMessage } from './mail-catcher'
-
-const escapes: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', '\'': '&#39;' }
-const escape = (text: string) => text.replace(/[&<>"']/g, c => escapes[c]!)
+import { escapeHtml as escape } from '../server/utils/mail-templates'
 
 /** The text with each http(s) address a link; split() with a capture group puts the addresses at the odd places. */
 function linked(text: string): string {
