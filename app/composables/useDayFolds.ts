@@ -10,8 +10,12 @@ export interface DayJump { section: DaySection, title: string, count?: number, f
 
 export function useDayFolds() {
   const folded = useState<DaySection[]>('day-folds', () => [])
+  // Every section, the jump list and the sheet use this: the phone's copy is read once, by the first.
+  const read = useState('day-folds-read', () => false)
 
   onMounted(() => {
+    if (read.value) return
+    read.value = true
     try {
       const kept = JSON.parse(localStorage.getItem(STORAGE_KEY) ?? '[]') as unknown
       if (Array.isArray(kept)) folded.value = kept.filter((s): s is DaySection => typeof s === 'string')
