@@ -18,7 +18,8 @@ export async function listCrew(organisationId: string): Promise<CrewMember[]> {
 }
 
 async function refuseSameName(trx: Knex.Transaction, organisationId: string, name: string, except?: string): Promise<void> {
-  const same = await trx('crew_members').where({ organisation_id: organisationId, active: true }).whereRaw('LOWER(name) = LOWER(?)', [name])
+  // The table's collation compares names without regard to case or accents (shared/utils/text-match.ts).
+  const same = await trx('crew_members').where({ organisation_id: organisationId, active: true, name })
     .modify((q) => { if (except) q.whereNot('id', except) }).forUpdate().first('id')
   if (same) throw createError({ statusCode: 422, statusMessage: 'Someone on the roster already has this name', data: { fieldErrors: { name: 'Someone on the roster already has this name; add an initial' } } })
 }

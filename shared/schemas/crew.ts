@@ -1,5 +1,6 @@
 // The company's crew roster: everyone whose hours a crew lead logs, with or without a Tamp sign-in
-// (most labourers never have one). The office keeps it; the phones get the active ones.
+// (most labourers never have one). The office keeps it; the phones get the active ones, and anyone
+// taken off it who still has hours on the days a phone holds.
 import { z } from 'zod'
 import { personName } from './auth'
 
