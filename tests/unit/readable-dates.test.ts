@@ -15,7 +15,19 @@ describe('dates as people read them', () => {
   })
 
   it('never moves a day across midnight, whatever the server\'s time zone', () => {
-    // Noon UTC on the day, formatted in UTC: the first and last days of a year stay where they are.
-    expect(shortDate('2027-01-01')).toBe('Fri, Jan 1, 2027')
+    // Read as midnight UTC and written in the server's own zone, January 1 would print as December 31
+    // on a server west of Greenwich; the zones at both ends of the clock are tried.
+    const zone = process.env.TZ
+    try {
+      for (const tz of ['America/Los_Angeles', 'Pacific/Kiritimati']) {
+        process.env.TZ = tz
+        expect(shortDate('2027-01-01'), tz).toBe('Fri, Jan 1, 2027')
+        expect(readableDate('2026-12-31'), tz).toBe('Thursday, December 31, 2026')
+      }
+    }
+    finally {
+      if (zone === undefined) delete process.env.TZ
+      else process.env.TZ = zone
+    }
   })
 })
