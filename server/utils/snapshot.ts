@@ -22,14 +22,17 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
     .select('jobs.id', 'jobs.name', 'jobs.customer_name as customerName', 'jobs.site_address as siteAddress', 'jobs.status',
       'jobs.start_date as startDate', 'jobs.crew_size as crewSize', 'jobs.notes', 'jobs.crew_days_bid as crewDaysBid')
   const jobIds = jobs.map(j => j.id)
-  const [zones, everyone, sheetRows]: [SnapshotZone[], (Omit<Snapshot['roster'][number], 'active'> & { active: number | boolean })[], Record<string, unknown>[]] = await Promise.all([
+  const [zones, sheetRows]: [SnapshotZone[], Record<string, unknown>[]] = await Promise.all([
     jobIds.length ? db('zones').whereIn('job_id', jobIds).orderBy('name').select('id', 'job_id as jobId', 'name', 'kind', 'design_base_depth_in as designBaseDepthIn', 'base_extension_in as baseExtensionIn', 'area_sq_ft as areaSqFt', 'length_ft as lengthFt') : [],
-    db('crew_members').where({ organisation_id: member.organisationId }).orderBy('name').select('id', 'name', 'trade_role as tradeRole', 'active'),
     jobIds.length ? db('day_sheets').whereIn('job_id', jobIds).andWhereRaw('work_date >= CURDATE() - INTERVAL ? DAY', [recentDays]) : [],
   ])
   const daySheets: Snapshot['daySheets'] = sheetRows.map((row: Record<string, unknown>) => ({ ...fromRow('day_sheet', row), id: row.id as string, revision: row.revision as number, reviewState: row.review_state as string }))
   const sheetIds = sheetRows.map(row => row.id as string)
-  const [zoneRecords, materialEstimates, timeEntries, materialDrops, lifts, photos, zoneQuantities, builtEarlier] = await Promise.all([
+  const [rosterRows, zoneRecords, materialEstimates, timeEntries, materialDrops, lifts, photos, zoneQuantities, builtEarlier] = await Promise.all([
+    // The roster, and anyone taken off it who has hours on a day the phone holds: those hours keep a name and a row.
+    db('crew_members').where('organisation_id', member.organisationId)
+      .andWhere(q => q.where('active', true).orWhereIn('id', db('time_entries').whereIn('day_sheet_id', sheetIds).select('crew_member_id')))
+      .orderBy('name').select('id', 'name', 'trade_role as tradeRole', 'active') as Promise<{ id: string, name: string, tradeRole: string | null, active: number }[]>,
     recordsOf('zone', 'job_id', jobIds),
     recordsOf('material_estimate', 'job_id', jobIds),
     recordsOf('time_entry', 'day_sheet_id', sheetIds),
@@ -39,9 +42,7 @@ export async function snapshotFor(member: Member): Promise<Snapshot> {
     recordsOf('zone_quantity', 'day_sheet_id', sheetIds),
     builtBeforeWindow(jobIds, recentDays),
   ])
-  // Off the roster but with hours on a day the phone holds: kept, so those hours have a name and a row.
-  const withHours = new Set(timeEntries.map(e => e.crewMemberId as string))
-  const roster = everyone.filter(m => m.active || withHours.has(m.id)).map(m => ({ ...m, active: Boolean(m.active) }))
+  const roster: Snapshot['roster'] = rosterRows.map(m => ({ ...m, active: Boolean(m.active) }))
   const { reviewFlags, flagAnswers } = await openFlagsOf(jobIds)
   const earlier = await compactedBeforeWindow(jobIds)
   return {
