@@ -46,7 +46,7 @@ beforeAll(async () => {
   const upload = await fetch(`/api/photos/${portraitId}?${query}`, { method: 'PUT', body: new Uint8Array(await phoneJpeg({ width: 1200, height: 1600 })), headers: { 'content-type': 'image/jpeg', 'cookie': lead } })
   expect(upload.status).toBe(201)
   browser = await launchBrowser()
-  // The foreman works online: no service worker, so the one-time "works without signal" notice (tests/browser/pwa.test.ts)
+  // The foreman works online: no service worker, so the one-time "works without signal" notice it brings
   // never slides over the bottom bar in the middle of a tap.
   context = await phoneContext(browser, { baseURL: url('/'), serviceWorkers: 'block' })
   page = await context.newPage()
